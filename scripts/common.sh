@@ -1,0 +1,35 @@
+#!/usr/bin/env bash
+# Helpers shared by start.sh, dev.sh and test.sh.
+
+random_secret() { node -e "process.stdout.write(require('crypto').randomBytes(24).toString('base64url'))"; }
+
+# Install npm packages from the lockfile when node_modules is missing or older than the lockfile.
+ensure_node_modules() {
+  if [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+    echo "[scrubwright] installing npm packages (npm ci)"
+    npm ci --no-audit --no-fund --loglevel=error
+  fi
+}
+
+# wait_for_http URL SECONDS
+wait_for_http() {
+  local url="$1" secs="$2"
+  for _ in $(seq 1 $((secs * 5))); do
+    if node -e "fetch(process.argv[1]).then(r=>process.exit(r.ok?0:1)).catch(()=>process.exit(1))" "$url" 2>/dev/null; then return 0; fi
+    sleep 0.2
+  done
+  return 1
+}
+
+ensure_chromium() {
+  if [ -n "${CHROMIUM_PATH:-}" ] && [ -x "$CHROMIUM_PATH" ]; then return 0; fi
+  if command -v chromium >/dev/null 2>&1; then export CHROMIUM_PATH="$(command -v chromium)"; return 0; fi
+  if [ "$(id -u)" = "0" ] && command -v apt-get >/dev/null 2>&1; then
+    echo "[scrubwright] installing Debian's chromium for browser tests" >&2
+    apt-get update -qq >/dev/null
+    DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+    export CHROMIUM_PATH="$(command -v chromium)"; return 0
+  fi
+  echo "[scrubwright] chromium is missing; install it as root with: apt-get install chromium" >&2
+  return 1
+}

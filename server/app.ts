@@ -1,0 +1,62 @@
+import express, { type Express } from 'express'
+import helmet from 'helmet'
+import cookieParser from 'cookie-parser'
+import { pinoHttp } from 'pino-http'
+import path from 'node:path'
+import fs from 'node:fs'
+import { fileURLToPath } from 'node:url'
+import { config as defaultConfig, type Config } from './config.ts'
+import { logger } from './logger.ts'
+import { requestId } from './middleware/request-id.ts'
+import { errorHandler, notFound } from './middleware/error-handler.ts'
+import { newRouter } from './routes/define.ts'
+import { identityRoutes } from './routes/identity.ts'
+import { associate } from './db/associations.ts'
+import { registerFeatureRoutes } from './routes/index.ts'
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
+
+/** The whole HTTP application, without listening: tests use it in-process. */
+export function createApp(overrides: Partial<Config> = {}): Express {
+  const cfg: Config = { ...defaultConfig, ...overrides }
+  associate()
+  const app = express()
+  app.disable('x-powered-by')
+  app.set('trust proxy', 'loopback')
+  app.use(requestId)
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'font-src': ["'self'", 'data:'],
+          'script-src': ["'self'"],
+          'connect-src': ["'self'"],
+          // Served over plain HTTP on loopback by default; a TLS proxy in front may add it back.
+          'upgrade-insecure-requests': null,
+        },
+      },
+      strictTransportSecurity: cfg.NODE_ENV === 'production',
+    }),
+  )
+  app.use(pinoHttp({ logger, genReqId: (req) => (req as express.Request).id, autoLogging: { ignore: (req) => req.url === '/api/v1/health' } }))
+  app.use(express.json({ limit: '512kb' }))
+  app.use(cookieParser())
+
+  const api = newRouter()
+  identityRoutes(api, cfg)
+  registerFeatureRoutes(api, cfg)
+  app.use('/api/v1', api)
+  app.use('/api', notFound)
+
+  const dist = path.join(root, 'dist')
+  if (fs.existsSync(path.join(dist, 'index.html'))) {
+    app.use(express.static(dist, { index: false, maxAge: '1h' }))
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(dist, 'index.html')))
+  }
+  app.use(notFound)
+  app.use(errorHandler)
+  return app
+}

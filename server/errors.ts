@@ -1,0 +1,54 @@
+/** One error family for the whole API; the error handler maps each to its status. */
+export interface ErrorDetail {
+  path: string
+  message: string
+  code?: string
+}
+
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly details: ErrorDetail[] = [],
+  ) {
+    super(message)
+    this.name = new.target.name
+  }
+}
+
+export class ValidationError extends AppError {
+  constructor(message: string, details: ErrorDetail[] = []) {
+    super(400, 'validation_failed', message, details)
+  }
+}
+export class UnauthenticatedError extends AppError {
+  constructor(message = 'Sign in to continue.') {
+    super(401, 'unauthenticated', message)
+  }
+}
+export class ForbiddenError extends AppError {
+  constructor(message = 'Your role does not allow this.') {
+    super(403, 'forbidden', message)
+  }
+}
+export class NotFoundError extends AppError {
+  constructor(what = 'Resource') {
+    super(404, 'not_found', `${what} not found.`)
+  }
+}
+export class ConflictError extends AppError {
+  constructor(message: string, details: ErrorDetail[] = []) {
+    super(409, 'conflict', message, details)
+  }
+}
+export class InfeasibleError extends AppError {
+  constructor(message: string, details: ErrorDetail[] = []) {
+    super(422, 'infeasible_design', message, details)
+  }
+}
+export class TooManyRequestsError extends AppError {
+  constructor(message = 'Too many attempts; try again later.') {
+    super(429, 'rate_limited', message)
+  }
+}

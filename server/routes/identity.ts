@@ -1,0 +1,105 @@
+import type { Router } from 'express'
+import { rateLimit } from 'express-rate-limit'
+import { defineRoutes, parse, ANY_ROLE, SESSION_COOKIE, type RouteSpec } from './define.ts'
+import { signIn, signOut, userView } from '../services/auth.ts'
+import * as people from '../services/people.ts'
+import { AuditEntry } from '../db/models/index.ts'
+import { loginBody, createUserBody, createSiteBody, setMembershipBody, updateMeBody } from '../../shared/schemas/identity.ts'
+import { idParam, pagingQuery } from '../../shared/schemas/common.ts'
+import { TooManyRequestsError } from '../errors.ts'
+import type { Config } from '../config.ts'
+
+export function identityRoutes(router: Router, cfg: Config): Router {
+  const loginLimiter = rateLimit({
+    windowMs: 15 * 60_000,
+    limit: cfg.LOGIN_RATE_LIMIT,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, _res, next) => next(new TooManyRequestsError('Too many sign-in attempts; wait a few minutes and try again.')),
+  })
+  const secure = cfg.NODE_ENV === 'production'
+
+  const specs: RouteSpec[] = [
+    {
+      method: 'get', path: '/health', access: { kind: 'public' }, summary: 'Liveness and version',
+      handler: () => ({ status: 'ok', service: 'scrubwright' }),
+    },
+    {
+      method: 'post', path: '/auth/login', access: { kind: 'public' }, summary: 'Sign in with e-mail and password',
+      before: [loginLimiter],
+      handler: async (req, res) => {
+        const body = parse(loginBody, req.body)
+        const session = await signIn(body.email, body.password, req.requestId)
+        res.cookie(SESSION_COOKIE, session.token, {
+          httpOnly: true, sameSite: 'strict', secure, path: '/api', expires: new Date(session.expiresAt),
+        })
+        res.status(200).json(session)
+      },
+    },
+    {
+      method: 'post', path: '/auth/logout', access: { kind: 'signedIn' }, summary: 'Sign out (ends every session of this person)',
+      handler: async (req, res) => {
+        await signOut(req.user!.id, req.requestId)
+        res.clearCookie(SESSION_COOKIE, { path: '/api' })
+        res.status(204).end()
+      },
+    },
+    {
+      method: 'get', path: '/auth/me', access: { kind: 'signedIn' }, summary: 'The signed-in person with their site roles',
+      handler: (req) => userView(req.user!.id),
+    },
+    {
+      method: 'patch', path: '/auth/me', access: { kind: 'signedIn' }, summary: 'Change own name or unit system',
+      handler: async (req, res) => {
+        await people.updateMe(req.user!.id, parse(updateMeBody, req.body))
+        res.json(await userView(req.user!.id))
+      },
+    },
+    {
+      method: 'get', path: '/sites', access: { kind: 'signedIn' }, summary: 'Sites the person is a member of',
+      handler: (req) => people.listMySites(req.user!),
+    },
+    {
+      method: 'post', path: '/sites', access: { kind: 'systemAdmin' }, summary: 'Create a site',
+      handler: (req) => people.createSite(parse(createSiteBody, req.body), req.user!, req.requestId),
+    },
+    {
+      method: 'get', path: '/sites/:siteId', access: { kind: 'site', roles: ANY_ROLE }, summary: 'One site',
+      handler: (req) => people.getSite(req.site!.id, req.user!),
+    },
+    {
+      method: 'get', path: '/sites/:siteId/members', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Members of a site and their roles',
+      handler: (req) => people.listMembers(req.site!.id),
+    },
+    {
+      method: 'put', path: '/sites/:siteId/members/:userId', access: { kind: 'site', roles: ['admin'] }, summary: 'Give a person a role at the site',
+      handler: (req) =>
+        people.setMembership(req.site!.id, parse(idParam, req.params.userId, 'params.userId'), parse(setMembershipBody, req.body).role, req.user!, req.requestId),
+    },
+    {
+      method: 'delete', path: '/sites/:siteId/members/:userId', access: { kind: 'site', roles: ['admin'] }, summary: 'Remove a person from the site',
+      handler: async (req) => {
+        await people.removeMembership(req.site!.id, parse(idParam, req.params.userId, 'params.userId'), req.user!, req.requestId)
+      },
+    },
+    {
+      method: 'get', path: '/sites/:siteId/audit', access: { kind: 'site', roles: ['admin'] }, summary: 'The site audit log, newest first',
+      handler: async (req) => {
+        const q = parse(pagingQuery, req.query, 'query')
+        const { rows, count } = await AuditEntry.findAndCountAll({
+          where: { siteId: req.site!.id }, order: [['id', 'DESC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize,
+        })
+        return { items: rows.map((r) => r.get({ plain: true })), total: count, page: q.page, pageSize: q.pageSize }
+      },
+    },
+    {
+      method: 'get', path: '/people', access: { kind: 'systemAdmin' }, summary: 'Everyone, with memberships',
+      handler: () => people.listPeople(),
+    },
+    {
+      method: 'post', path: '/people', access: { kind: 'systemAdmin' }, summary: 'Create a person',
+      handler: (req) => people.createPerson(parse(createUserBody, req.body), req.user!, req.requestId),
+    },
+  ]
+  return defineRoutes(router, specs)
+}

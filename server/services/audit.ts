@@ -1,0 +1,30 @@
+import type { Transaction } from 'sequelize'
+import { AuditEntry } from '../db/models/index.ts'
+
+export interface AuditInput {
+  userId: number | null
+  siteId: number | null
+  action: string
+  entity: string
+  entityId: number | string | null
+  before?: unknown
+  after?: unknown
+  requestId?: string | null
+}
+
+/** Append one entry to the audit log (inside the caller's transaction when given). */
+export async function audit(e: AuditInput, transaction?: Transaction): Promise<void> {
+  await AuditEntry.create(
+    {
+      userId: e.userId,
+      siteId: e.siteId,
+      action: e.action,
+      entity: e.entity,
+      entityId: e.entityId === null ? null : String(e.entityId),
+      before: e.before ?? null,
+      after: e.after ?? null,
+      requestId: e.requestId ?? null,
+    },
+    { transaction },
+  )
+}

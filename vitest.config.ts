@@ -1,8 +1,8 @@
 import { defineConfig, mergeConfig } from 'vitest/config'
 import viteConfig from './vite.config.ts'
 
-// Three projects: pure engine tests, client component tests (happy-dom) and
-// API tests against a real MariaDB (scripts/test.sh starts it and sets DATABASE_URL).
+// Four projects: pure engine tests, client component tests (happy-dom), API tests against a
+// real MariaDB and browser tests (scripts/test.sh starts the database and server, sets the URLs).
 export default mergeConfig(
   viteConfig,
   defineConfig({
@@ -25,7 +25,19 @@ export default mergeConfig(
             environment: 'node',
             include: ['tests/server/**/*.spec.ts'],
             fileParallelism: false,
+            globalSetup: ['tests/server/global-setup.ts'],
             testTimeout: 30000,
+            hookTimeout: 60000,
+          },
+        },
+        {
+          extends: true,
+          test: {
+            name: 'e2e',
+            environment: 'node',
+            include: ['tests/e2e/**/*.e2e.spec.ts'],
+            fileParallelism: false,
+            testTimeout: 120000,
             hookTimeout: 60000,
           },
         },

@@ -1,0 +1,72 @@
+import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import { mkdtempSync, mkdirSync, rmSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import path from 'node:path'
+
+/** Browser-test harness: Debian's chromium driven by playwright-core against the served app. */
+export const baseUrl = process.env.E2E_BASE_URL ?? 'http://127.0.0.1:8647'
+export const DEMO_PASSWORD = 'scrubwright-demo'
+export const DEMO_EMAILS = {
+  admin: 'admin@halvard.example',
+  economist: 'economist@halvard.example',
+  engineer: 'engineer@halvard.example',
+  reviewer: 'reviewer@halvard.example',
+  bayEngineer: 'bay.engineer@halvard.example',
+} as const
+export type DemoPerson = keyof typeof DEMO_EMAILS
+
+export const screenshotDir = path.resolve('screenshots')
+
+export interface BrowserSession {
+  context: BrowserContext
+  page: Page
+  /** Console errors and failed requests seen so far (tests assert this stays empty). */
+  problems: string[]
+  close(): Promise<void>
+}
+
+export async function openBrowser(): Promise<BrowserSession> {
+  const profile = mkdtempSync(path.join(tmpdir(), 'sw-chromium-'))
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    headless: true,
+    viewport: { width: 1440, height: 900 },
+    args: [
+      '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update',
+      '--disable-sync', '--no-first-run', '--disable-quic', '--disable-dev-shm-usage',
+    ],
+  })
+  const page = context.pages()[0] ?? (await context.newPage())
+  const problems: string[] = []
+  page.on('console', (m) => {
+    if (m.type() === 'error' && !/status of 40[134]/.test(m.text())) problems.push(`console: ${m.text()}`)
+  })
+  page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`))
+  return {
+    context,
+    page,
+    problems,
+    async close() {
+      await context.close()
+      rmSync(profile, { recursive: true, force: true })
+    },
+  }
+}
+
+/** Sign in through the sign-in page as one of the demo people and wait for the app shell. */
+export async function signIn(page: Page, who: DemoPerson): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`)
+  await page.getByLabel('E-mail').fill(DEMO_EMAILS[who])
+  await page.getByLabel('Password').fill(DEMO_PASSWORD)
+  await page.getByRole('button', { name: /sign in/i }).click()
+  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 15000 })
+}
+
+/** Save a full-page screenshot to screenshots/NAME.png (ignored by git) after transitions settle. */
+export async function shot(page: Page, name: string): Promise<string> {
+  mkdirSync(screenshotDir, { recursive: true })
+  await page.waitForTimeout(400)
+  const file = path.join(screenshotDir, `${name}.png`)
+  await page.screenshot({ path: file, fullPage: true })
+  return file
+}

@@ -65,6 +65,10 @@ export interface DesignSummary {
   shellThickness: number // m, including corrosion allowance
   shellMass: number // kg, shell + two heads
   percentFlood: number // actual % of flood at the selected diameter
+
+  // added by the design engine (additive)
+  overallEfficiency?: number // - (O'Connell or the fixed user value)
+  achievedRecovery?: number // recovery reached with actualTrays (= recovery unless vars.actualTrays adds trays)
 }
 
 export interface StageProfilePoint {

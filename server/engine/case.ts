@@ -1,0 +1,462 @@
+/**
+ * The case in SI (CaseSI) and its normalisation from a parsed case file.
+ *
+ * SI conventions inside the engine:
+ *   molar flows mol/s; mass flows kg/s; temperatures K; pressures Pa (absolute unless
+ *   the name says gauge); lengths m; densities kg/m3; viscosities Pa s; surface tension
+ *   N/m; molar masses kg/mol; Henry H^cp mol/(m3 Pa); stresses Pa. Fractions are 0..1.
+ *
+ * normaliseCase resolves library names, applies defaults, converts units (once, here)
+ * and checks signs and ranges, throwing InvalidInputError with the field path.
+ */
+import type { CaseInput } from '../../shared/schemas/case.ts'
+import { toSI, UnitError, type QuantityInput, type QuantityKind } from '../../shared/units.ts'
+import type { EngineWarning } from './contract.ts'
+import { InvalidInputError } from './errors.ts'
+import { MOLAR_MASS_WATER, densityWater, surfaceTensionWater, viscosityWater } from './properties/water.ts'
+import { MMHG } from './properties/constants.ts'
+import { validateTable } from './equilibrium/models.ts'
+import { DEFAULT_SPACING_RULE, type SpacingRuleRow } from './hydraulics/flooding.ts'
+import { DEFAULT_MIN_THICKNESS, type MinThicknessRow } from './vessel/shell.ts'
+import type { AntoineSI } from './properties/vapourPressure.ts'
+
+// ---------------------------------------------------------------- library types
+
+export interface LibraryValue<T = number> {
+  value: T
+  unit?: string
+  temperature?: number
+  source: string
+}
+export interface LibraryComponent {
+  aliases?: string[]
+  cas?: string
+  formula?: string
+  molarMass?: LibraryValue
+  henry?: { Hcp: number; B: number; source: string }
+  antoine?: { A: number; B: number; C: number; Tmin: number; Tmax: number; source: string }
+  gammaInfWater?: LibraryValue
+  gasViscosity?: LibraryValue
+  liquidCorrelations?: LibraryValue<string>
+  hazards?: { flags: string[]; source: string }
+}
+export interface ComponentLibrary {
+  schemaVersion?: number
+  description?: string
+  components: Record<string, LibraryComponent>
+}
+
+/** Find a component by name or alias (case-insensitive). Returns [canonical name, data]. */
+export function findComponent(lib: ComponentLibrary, name: string): [string, LibraryComponent] | null {
+  const n = name.trim().toLowerCase()
+  for (const key of Object.keys(lib.components)) {
+    const c = lib.components[key]!
+    if (key.toLowerCase() === n) return [key, c]
+    if (c.aliases && c.aliases.some((a) => a.toLowerCase() === n)) return [key, c]
+  }
+  return null
+}
+
+/** A library with site components added (site entries replace library entries of the same name). */
+export function mergeLibraries(base: ComponentLibrary, extra: ComponentLibrary | undefined): ComponentLibrary {
+  if (!extra) return base
+  return { ...base, components: { ...base.components, ...extra.components } }
+}
+
+// ---------------------------------------------------------------- CaseSI
+
+export type EquilibriumSI =
+  | { model: 'constantK'; K: number }
+  | { model: 'henry'; Hcp: number; B: number }
+  | {
+      model: 'modifiedRaoult'
+      gammaInf: number
+      activityModel: 'constant' | 'margules'
+      antoine: AntoineSI | null
+      /** fixed vapour pressure at column T [Pa], overrides antoine */
+      vapourPressure: number | null
+    }
+  | { model: 'table'; x: number[]; y: number[] }
+
+export interface CaseSI {
+  name?: string
+  gas: {
+    flow: number // mol/s, total inlet gas
+    temperature: number // K, inlet gas
+    pressure: number // Pa abs, column (inlet) pressure
+    soluteMoleFraction: number // y_{N+1}
+    carrierMolarMass: number // kg/mol
+    carrierName: string | null
+    viscosity: number | null // Pa s (information; not used by the correlations chosen)
+  }
+  solute: { name: string | null; molarMass: number; hazards: string[] }
+  solvent: {
+    name: string | null
+    temperature: number // K, inlet
+    soluteMoleFraction: number // x0
+    molarMass: number // kg/mol
+    density: number // kg/m3
+    viscosity: number // Pa s
+    surfaceTension: number // N/m
+  }
+  equilibrium: EquilibriumSI
+  /** Temperature for equilibrium and liquid properties [K] (default: solvent inlet temperature). */
+  columnTemperature: number
+  recovery: number
+  solventFactor: number
+  tray: {
+    holeDiameter: number // m
+    holePitch: number // m
+    thickness: number // m
+    spacing: number | 'auto' // m
+    floodFraction: number
+    foamingFactor: number
+    weirHeight: number // m
+    downcomerClearance: number // m (apron clearance under the downcomer)
+    spacingRule: SpacingRuleRow[]
+  }
+  efficiency: { model: 'oconnell' } | { model: 'fixed'; value: number }
+  method: 'auto' | 'kremser' | 'stageByStage'
+  column: { diameterStep: number; topAllowance: number; bottomAllowance: number }
+  vessel: {
+    designPressure: number // Pa gauge
+    allowableStress: number // Pa
+    jointEfficiency: number
+    corrosionAllowance: number // m
+    materialDensity: number // kg/m3
+    minimumThickness: MinThicknessRow[]
+  }
+  /** Notes from normalisation (defaults taken, library values used), passed on as warnings. */
+  warnings: EngineWarning[]
+  /** Hazard cautions from the library (solute and carrier). */
+  cautions: string[]
+}
+
+// ---------------------------------------------------------------- defaults
+
+/** Defaults of optional fields; documented in data/examples/README.md. */
+export const CASE_DEFAULTS = {
+  tray: {
+    holeDiameter: 0.0045, // m, common practice 3-6 mm (4.5 mm typical)
+    holePitch: 0.012, // m, 2.5-3 d_o
+    thickness: 0.002, // m
+    spacing: 'auto' as const,
+    floodFraction: 0.8, // common practice (Benitez/Treybal examples)
+    foamingFactor: 1.0, // non-foaming
+    weirHeight: 0.05, // m, Sinnott: 40-50 mm above atmospheric pressure
+    downcomerClearanceBelowWeir: 0.01, // m: apron clearance = weir height - 10 mm (common practice)
+  },
+  column: {
+    diameterStep: 0.05, // m, common practice
+    topAllowance: 1.0, // m above the top tray (Benitez Illus. 6.7)
+    bottomAllowance: 3.0, // m below the bottom tray (Benitez Illus. 6.7)
+  },
+  vessel: {
+    designPressureMarginFactor: 1.1, // design = max(1.1 x operating gauge, operating gauge + 170 kPa): common practice
+    designPressureMarginAdd: 170e3, // Pa
+    allowableStress: 138e6, // Pa, carbon steel SA-516-70 near ambient (from memory)
+    jointEfficiency: 0.85, // spot radiography
+    corrosionAllowance: 0.003, // m
+    materialDensity: 7850, // kg/m3 carbon steel
+  },
+}
+
+const HAZARD_CAUTIONS: Record<string, (name: string, role: string) => string> = {
+  flammable: (n) =>
+    `${n} is flammable: the vent gas and the vapour space can be within flammable limits; classify the area, control ignition sources and ventilate.`,
+  toxic: (n) => `${n} is toxic: check exposure limits, leak detection and the fate of the unabsorbed ${n} in the vent.`,
+  corrosive: (n) => `${n} is corrosive: check materials of construction.`,
+  asphyxiant: (n) =>
+    `${n} is an asphyxiant: the vent must discharge where it cannot accumulate; confined-space entry rules apply to the column.`,
+}
+
+// ---------------------------------------------------------------- normalise
+
+class Ctx {
+  warnings: EngineWarning[] = []
+  q(kind: QuantityKind, v: QuantityInput, path: string): number {
+    try {
+      return toSI(kind, v)
+    } catch (e) {
+      if (e instanceof UnitError) throw new InvalidInputError(path, e.message)
+      throw e
+    }
+  }
+  positive(v: number, path: string, what = 'must be a positive number'): number {
+    if (!Number.isFinite(v) || v <= 0) throw new InvalidInputError(path, `${what} (got ${v})`)
+    return v
+  }
+  range(v: number, lo: number, hi: number, path: string, loOpen = false, hiOpen = false): number {
+    const okLo = loOpen ? v > lo : v >= lo
+    const okHi = hiOpen ? v < hi : v <= hi
+    if (!Number.isFinite(v) || !okLo || !okHi) {
+      throw new InvalidInputError(path, `must be within ${loOpen ? '(' : '['}${lo}, ${hi}${hiOpen ? ')' : ']'} (got ${v})`)
+    }
+    return v
+  }
+  absTemp(v: number, path: string): number {
+    if (!Number.isFinite(v) || v <= 0) throw new InvalidInputError(path, `temperature must be above absolute zero (got ${v} K)`)
+    return v
+  }
+  note(message: string, path?: string) {
+    this.warnings.push({ code: 'defaultUsed', message, path })
+  }
+}
+
+/**
+ * Resolve names, apply defaults, convert to SI and check the input.
+ * @throws InvalidInputError (path + reason)
+ */
+export function normaliseCase(input: CaseInput, library: ComponentLibrary): CaseSI {
+  const c = new Ctx()
+  const cautions: string[] = []
+
+  // ---- solute
+  let soluteName: string | null = null
+  let soluteLib: LibraryComponent | null = null
+  let soluteM: number | null = null
+  const sIn = input.solute
+  const soluteObj = typeof sIn === 'string' ? { name: sIn } : sIn
+  if (soluteObj.name !== undefined) {
+    const f = findComponent(library, soluteObj.name)
+    if (!f) throw new InvalidInputError(typeof sIn === 'string' ? 'solute' : 'solute.name', `unknown component "${soluteObj.name}" (not in the component library)`)
+    soluteName = f[0]
+    soluteLib = f[1]
+  }
+  if (soluteObj.molarMass !== undefined) soluteM = c.positive(c.q('molarMass', soluteObj.molarMass, 'solute.molarMass'), 'solute.molarMass')
+  else if (soluteLib?.molarMass) soluteM = soluteLib.molarMass.value / 1000
+  if (soluteM === null) throw new InvalidInputError('solute.molarMass', 'missing: give molarMass or a library component name')
+  const soluteHazards = soluteLib?.hazards?.flags ?? []
+  const soluteLabel = soluteName ?? 'The solute'
+  for (const h of soluteHazards) {
+    const f = HAZARD_CAUTIONS[h]
+    if (f) cautions.push(f(soluteLabel, 'solute'))
+  }
+  if (!soluteLib) cautions.push('The solute is not from the component library: check its hazards (flammability, toxicity) on its safety data sheet.')
+
+  // ---- gas
+  const g = input.gas
+  const gasFlow = c.positive(c.q('molarFlow', g.flow, 'gas.flow'), 'gas.flow')
+  const gasT = c.absTemp(c.q('temperature', g.temperature, 'gas.temperature'), 'gas.temperature')
+  const P = c.positive(c.q('pressure', g.pressure, 'gas.pressure'), 'gas.pressure', 'absolute pressure must be positive')
+  const y0 = c.range(g.soluteMoleFraction, 0, 1, 'gas.soluteMoleFraction', true, true)
+  let carrierName: string | null = null
+  let carrierLib: LibraryComponent | null = null
+  if (g.carrier !== undefined) {
+    const f = findComponent(library, g.carrier)
+    if (!f) throw new InvalidInputError('gas.carrier', `unknown component "${g.carrier}" (not in the component library)`)
+    carrierName = f[0]
+    carrierLib = f[1]
+  }
+  let carrierM: number
+  if (g.carrierMolarMass !== undefined) carrierM = c.positive(c.q('molarMass', g.carrierMolarMass, 'gas.carrierMolarMass'), 'gas.carrierMolarMass')
+  else if (carrierLib?.molarMass) carrierM = carrierLib.molarMass.value / 1000
+  else throw new InvalidInputError('gas.carrierMolarMass', 'missing: give carrierMolarMass or gas.carrier (a library component)')
+  let gasMu: number | null = null
+  if (g.viscosity !== undefined) gasMu = c.positive(c.q('gasViscosity', g.viscosity, 'gas.viscosity'), 'gas.viscosity')
+  else if (carrierLib?.gasViscosity) gasMu = carrierLib.gasViscosity.value
+  for (const h of carrierLib?.hazards?.flags ?? []) {
+    const f = HAZARD_CAUTIONS[h]
+    if (f) cautions.push(f(carrierName ?? 'The carrier gas', 'carrier'))
+  }
+
+  // ---- solvent
+  const svIn = input.solvent
+  const sv = typeof svIn === 'string' ? { name: svIn } : svIn
+  let solventName: string | null = null
+  let solventLib: LibraryComponent | null = null
+  if (sv.name !== undefined) {
+    const f = findComponent(library, sv.name)
+    if (!f) throw new InvalidInputError(typeof svIn === 'string' ? 'solvent' : 'solvent.name', `unknown component "${sv.name}" (not in the component library)`)
+    solventName = f[0]
+    solventLib = f[1]
+  }
+  let solvT: number
+  if (sv.temperature !== undefined) solvT = c.absTemp(c.q('temperature', sv.temperature, 'solvent.temperature'), 'solvent.temperature')
+  else {
+    solvT = gasT
+    c.note('solvent.temperature not given: the gas inlet temperature is used', 'solvent.temperature')
+  }
+  const x0 = sv.soluteMoleFraction !== undefined ? c.range(sv.soluteMoleFraction, 0, 1, 'solvent.soluteMoleFraction', false, true) : 0
+  const correl = solventLib?.liquidCorrelations?.value === 'water'
+  const needProp = (path: string) => {
+    throw new InvalidInputError(path, `missing: give the solvent ${path.split('.')[1]} or use "water" (which has property correlations)`)
+  }
+  const colT = input.column?.temperature !== undefined ? c.absTemp(c.q('temperature', input.column.temperature, 'column.temperature'), 'column.temperature') : solvT
+  let solvM: number
+  if (sv.molarMass !== undefined) solvM = c.positive(c.q('molarMass', sv.molarMass, 'solvent.molarMass'), 'solvent.molarMass')
+  else if (solventLib?.molarMass) solvM = solventLib.molarMass.value / 1000
+  else solvM = needProp('solvent.molarMass')
+  const propWarnings: EngineWarning[] = []
+  const rhoL = sv.density !== undefined ? c.positive(c.q('density', sv.density, 'solvent.density'), 'solvent.density') : correl ? densityWater(colT, propWarnings, 'solvent.temperature') : needProp('solvent.density')
+  const muL = sv.viscosity !== undefined ? c.positive(c.q('viscosity', sv.viscosity, 'solvent.viscosity'), 'solvent.viscosity') : correl ? viscosityWater(colT, propWarnings, 'solvent.temperature') : needProp('solvent.viscosity')
+  const sigma =
+    sv.surfaceTension !== undefined
+      ? c.positive(c.q('surfaceTension', sv.surfaceTension, 'solvent.surfaceTension'), 'solvent.surfaceTension')
+      : correl
+        ? surfaceTensionWater(colT, propWarnings, 'solvent.temperature')
+        : needProp('solvent.surfaceTension')
+  // only one warning per validity problem
+  if (propWarnings.length) c.warnings.push(propWarnings[0]!)
+  if (!(solvM > 0)) throw new InvalidInputError('solvent.molarMass', 'must be positive')
+
+  // ---- equilibrium
+  const e = input.equilibrium
+  let eq: EquilibriumSI
+  switch (e.model) {
+    case 'constantK':
+      eq = { model: 'constantK', K: c.positive(e.K, 'equilibrium.K') }
+      break
+    case 'henry': {
+      let Hcp: number
+      let B: number
+      if (e.Hcp !== undefined) Hcp = c.positive(c.q('henrySolubility', e.Hcp, 'equilibrium.Hcp'), 'equilibrium.Hcp')
+      else if (soluteLib?.henry) Hcp = soluteLib.henry.Hcp
+      else throw new InvalidInputError('equilibrium.Hcp', 'missing: give Hcp or a library solute with Henry data')
+      if (e.B !== undefined) B = c.q('inverseTemperatureSlope', e.B, 'equilibrium.B')
+      else if (soluteLib?.henry && e.Hcp === undefined) B = soluteLib.henry.B
+      else {
+        B = 0
+        c.note("equilibrium.B not given: Henry constant taken as independent of temperature", 'equilibrium.B')
+      }
+      if (!Number.isFinite(B)) throw new InvalidInputError('equilibrium.B', 'must be a finite number')
+      if (solventName !== 'water' && e.Hcp === undefined) {
+        c.warnings.push({ code: 'henrySolvent', message: 'Library Henry constants are for water as solvent', path: 'equilibrium' })
+      }
+      eq = { model: 'henry', Hcp, B }
+      break
+    }
+    case 'modifiedRaoult': {
+      let gammaInf: number
+      if (e.gammaInf !== undefined) gammaInf = c.positive(e.gammaInf, 'equilibrium.gammaInf')
+      else if (soluteLib?.gammaInfWater) gammaInf = soluteLib.gammaInfWater.value
+      else throw new InvalidInputError('equilibrium.gammaInf', 'missing: give gammaInf or a library solute with an infinite-dilution activity coefficient')
+      const activityModel = e.activityModel ?? 'constant'
+      if (activityModel === 'margules' && Math.log(gammaInf) >= 2) {
+        throw new InvalidInputError('equilibrium.activityModel', `the two-suffix Margules form needs gammaInf < e^2 = 7.39 (no liquid-liquid split); got ${gammaInf}`)
+      }
+      let antoine: AntoineSI | null = null
+      let Psat: number | null = null
+      if (e.vapourPressure !== undefined) Psat = c.positive(c.q('pressure', e.vapourPressure, 'equilibrium.vapourPressure'), 'equilibrium.vapourPressure')
+      else if (e.antoine) {
+        antoine = { A: e.antoine.A, B: e.antoine.B, C: e.antoine.C, Tmin: (e.antoine.Tmin ?? -273.15) + 273.15, Tmax: (e.antoine.Tmax ?? 1e4) + 273.15 }
+      } else if (soluteLib?.antoine) {
+        const a = soluteLib.antoine
+        antoine = { A: a.A, B: a.B, C: a.C, Tmin: a.Tmin + 273.15, Tmax: a.Tmax + 273.15 }
+      } else throw new InvalidInputError('equilibrium.antoine', 'missing: give antoine constants, vapourPressure, or a library solute with Antoine constants')
+      if (antoine) {
+        const t = colT - 273.15
+        const p = MMHG * Math.pow(10, antoine.A - antoine.B / (antoine.C + t))
+        if (!Number.isFinite(p) || p <= 0) throw new InvalidInputError('equilibrium.antoine', `gives no valid vapour pressure at ${t.toFixed(1)} degC`)
+      }
+      eq = { model: 'modifiedRaoult', gammaInf, activityModel, antoine, vapourPressure: Psat }
+      break
+    }
+    case 'table': {
+      const xs = e.points.map((p) => p[0])
+      const ys = e.points.map((p) => p[1])
+      const bad = validateTable(xs, ys)
+      if (bad) throw new InvalidInputError(`equilibrium.points.${bad.index}`, bad.reason)
+      if (xs[0]! > 0) {
+        xs.unshift(0)
+        ys.unshift(0)
+        c.note('equilibrium table does not start at x = 0: the origin (0, 0) was added', 'equilibrium.points')
+      }
+      eq = { model: 'table', x: xs, y: ys }
+      break
+    }
+  }
+
+  // ---- targets
+  const recovery = input.recovery
+  if (!Number.isFinite(recovery) || recovery <= 0 || recovery >= 1) throw new InvalidInputError('recovery', `must be within (0, 1) (got ${recovery})`)
+  const solventFactor = input.solventFactor
+  if (!Number.isFinite(solventFactor) || solventFactor <= 0) throw new InvalidInputError('solventFactor', `must be a positive number (got ${solventFactor})`)
+
+  // ---- tray
+  const t = input.tray ?? {}
+  const D = CASE_DEFAULTS.tray
+  const len = (v: QuantityInput | undefined, def: number, path: string, kind: QuantityKind = 'smallLength') =>
+    v === undefined ? def : c.positive(c.q(kind, v, path), path)
+  const holeDiameter = len(t.holeDiameter, D.holeDiameter, 'tray.holeDiameter')
+  const holePitch = len(t.holePitch, D.holePitch, 'tray.holePitch')
+  if (holePitch <= holeDiameter) throw new InvalidInputError('tray.holePitch', 'must be larger than the hole diameter')
+  const thickness = len(t.thickness, D.thickness, 'tray.thickness')
+  const weirHeight = len(t.weirHeight, D.weirHeight, 'tray.weirHeight')
+  const downcomerClearance =
+    t.downcomerClearance !== undefined
+      ? c.positive(c.q('smallLength', t.downcomerClearance, 'tray.downcomerClearance'), 'tray.downcomerClearance')
+      : Math.max(weirHeight - D.downcomerClearanceBelowWeir, 0.5 * weirHeight)
+  const spacing: number | 'auto' = t.spacing === undefined || t.spacing === 'auto' ? 'auto' : c.positive(c.q('length', t.spacing, 'tray.spacing'), 'tray.spacing')
+  const floodFraction = t.floodFraction !== undefined ? c.range(t.floodFraction, 0, 1, 'tray.floodFraction', true, true) : D.floodFraction
+  const foamingFactor = t.foamingFactor !== undefined ? c.range(t.foamingFactor, 0, 1.5, 'tray.foamingFactor', true, false) : D.foamingFactor
+  let spacingRule: SpacingRuleRow[]
+  if (t.spacingRule) {
+    spacingRule = t.spacingRule.map((r, i) => ({
+      maxDiameter: c.positive(c.q('length', r.maxDiameter, `tray.spacingRule.${i}.maxDiameter`), `tray.spacingRule.${i}.maxDiameter`),
+      spacing: c.positive(c.q('length', r.spacing, `tray.spacingRule.${i}.spacing`), `tray.spacingRule.${i}.spacing`),
+    }))
+    for (let i = 1; i < spacingRule.length; i++) {
+      if (spacingRule[i]!.maxDiameter <= spacingRule[i - 1]!.maxDiameter) {
+        throw new InvalidInputError(`tray.spacingRule.${i}.maxDiameter`, 'rows must be sorted by increasing maxDiameter')
+      }
+    }
+  } else spacingRule = DEFAULT_SPACING_RULE.map((r) => ({ ...r }))
+
+  // ---- efficiency
+  const ef = input.efficiency ?? { model: 'oconnell' as const }
+  const efficiency: CaseSI['efficiency'] = ef.model === 'fixed' ? { model: 'fixed', value: c.range(ef.value, 0, 1, 'efficiency.value', true, false) } : { model: 'oconnell' }
+
+  // ---- column
+  const col = input.column ?? {}
+  const column = {
+    diameterStep: len(col.diameterStep, CASE_DEFAULTS.column.diameterStep, 'column.diameterStep', 'length'),
+    topAllowance: col.topAllowance === undefined ? CASE_DEFAULTS.column.topAllowance : nonNeg(c.q('length', col.topAllowance, 'column.topAllowance'), 'column.topAllowance'),
+    bottomAllowance:
+      col.bottomAllowance === undefined ? CASE_DEFAULTS.column.bottomAllowance : nonNeg(c.q('length', col.bottomAllowance, 'column.bottomAllowance'), 'column.bottomAllowance'),
+  }
+
+  // ---- vessel
+  const v = input.vessel ?? {}
+  const V = CASE_DEFAULTS.vessel
+  const opGauge = Math.max(P - 101325, 0)
+  let designPressure: number
+  if (v.designPressure !== undefined) {
+    designPressure = c.q('pressureGauge', v.designPressure, 'vessel.designPressure')
+    if (!Number.isFinite(designPressure) || designPressure < 0) throw new InvalidInputError('vessel.designPressure', 'must be a gauge pressure >= 0 (vacuum design is out of scope)')
+    if (designPressure < opGauge) c.warnings.push({ code: 'designPressureBelowOperating', message: 'vessel.designPressure is below the operating gauge pressure', path: 'vessel.designPressure' })
+  } else designPressure = Math.max(V.designPressureMarginFactor * opGauge, opGauge + V.designPressureMarginAdd)
+  const allowableStress = v.allowableStress !== undefined ? c.positive(c.q('stress', v.allowableStress, 'vessel.allowableStress'), 'vessel.allowableStress') : V.allowableStress
+  const jointEfficiency = v.jointEfficiency !== undefined ? c.range(v.jointEfficiency, 0, 1, 'vessel.jointEfficiency', true, false) : V.jointEfficiency
+  const corrosionAllowance = v.corrosionAllowance !== undefined ? nonNeg(c.q('smallLength', v.corrosionAllowance, 'vessel.corrosionAllowance'), 'vessel.corrosionAllowance') : V.corrosionAllowance
+  const materialDensity = v.materialDensity !== undefined ? c.positive(c.q('density', v.materialDensity, 'vessel.materialDensity'), 'vessel.materialDensity') : V.materialDensity
+  const minimumThickness = v.minimumThickness
+    ? v.minimumThickness.map((r, i) => ({
+        maxDiameter: c.positive(c.q('length', r.maxDiameter, `vessel.minimumThickness.${i}.maxDiameter`), `vessel.minimumThickness.${i}.maxDiameter`),
+        thickness: c.positive(c.q('smallLength', r.thickness, `vessel.minimumThickness.${i}.thickness`), `vessel.minimumThickness.${i}.thickness`),
+      }))
+    : DEFAULT_MIN_THICKNESS.map((r) => ({ ...r }))
+
+  return {
+    name: typeof input.name === 'string' ? input.name : undefined,
+    gas: { flow: gasFlow, temperature: gasT, pressure: P, soluteMoleFraction: y0, carrierMolarMass: carrierM, carrierName, viscosity: gasMu },
+    solute: { name: soluteName, molarMass: soluteM, hazards: soluteHazards.slice() },
+    solvent: { name: solventName, temperature: solvT, soluteMoleFraction: x0, molarMass: solvM, density: rhoL, viscosity: muL, surfaceTension: sigma },
+    equilibrium: eq,
+    columnTemperature: colT,
+    recovery,
+    solventFactor,
+    tray: { holeDiameter, holePitch, thickness, spacing, floodFraction, foamingFactor, weirHeight, downcomerClearance, spacingRule },
+    efficiency,
+    method: input.method ?? 'auto',
+    column,
+    vessel: { designPressure, allowableStress, jointEfficiency, corrosionAllowance, materialDensity, minimumThickness },
+    warnings: c.warnings,
+    cautions,
+  }
+}
+
+function nonNeg(v: number, path: string): number {
+  if (!Number.isFinite(v) || v < 0) throw new InvalidInputError(path, `must be a number >= 0 (got ${v})`)
+  return v
+}

@@ -1,0 +1,43 @@
+/**
+ * Overall tray efficiency.
+ */
+import type { EngineWarning } from '../contract.ts'
+import { checkRange, type ValidityRange } from '../numerics/validity.ts'
+
+/** 1 lb/ft3 in kg/m3 (0.45359237 / 0.3048^3). */
+export const LB_PER_FT3 = 16.018463373960138
+
+/**
+ * O'Connell overall efficiency for absorbers (Edmister-type fit of the chart).
+ *
+ * Equation: E_o[%] = 10^{1.597 - 0.199 log10(K M_L mu_L/rho_L) - 0.0896 [log10(K M_L mu_L/rho_L)]^2},
+ *   M_L in g/mol, mu_L in cP, rho_L in lb/ft3
+ * @param K equilibrium ratio y/x [-]
+ * @param ML liquid molar mass [kg/mol]
+ * @param muL liquid viscosity [Pa s]
+ * @param rhoL liquid density [kg/m3]
+ * @returns E_o as a fraction [-]
+ * Validity: group K M_L mu_L / rho_L from 0.01 to 10 (chart range as remembered);
+ *   bubble-cap data, slightly conservative for sieve trays; Ludwig warns the absorber
+ *   chart can predict too high. Properties at the mean column temperature.
+ * Source: oconnell1946, fit as given by seaderHenley2011 (from memory).
+ * Example: K 0.57, M 18.02 g/mol, mu 0.797 cP, rho 62.18 lb/ft3 -> group 0.13166, E_o = 0.504
+ */
+export function efficiencyOConnell(K: number, ML: number, muL: number, rhoL: number, warnings?: EngineWarning[], path?: string): number {
+  const g = oconnellGroup(K, ML, muL, rhoL)
+  checkRange(warnings, "O'Connell absorber efficiency", efficiencyOConnellValidity, g, path)
+  const l = Math.log10(g)
+  return Math.pow(10, 1.597 - 0.199 * l - 0.0896 * l * l) / 100
+}
+export const efficiencyOConnellValidity: ValidityRange = { arg: 'K M_L mu_L / rho_L', min: 0.01, max: 10, unit: 'g cP ft3/(mol lb)' }
+
+/** O'Connell absorber group K M_L mu_L / rho_L in the chart's units (g/mol, cP, lb/ft3). */
+export function oconnellGroup(K: number, ML: number, muL: number, rhoL: number): number {
+  return (K * (ML * 1000) * (muL * 1000)) / (rhoL / LB_PER_FT3)
+}
+
+/** Actual trays from ideal stages and overall efficiency: ceil(N / E), at least 1. */
+export function actualTrays(N: number, E: number): number {
+  const t = Math.ceil(N / E - 1e-9)
+  return t < 1 ? 1 : t
+}

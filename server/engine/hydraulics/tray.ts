@@ -1,0 +1,123 @@
+/**
+ * Sieve-tray hydraulics: pressure drop, weeping, entrainment, downcomer.
+ * All heads in metres of clear liquid.
+ */
+import { G_ACC } from '../properties/constants.ts'
+import type { ValidityRange } from '../numerics/validity.ts'
+
+/**
+ * Orifice coefficient of sieve-tray holes (fit of the Liebson, Kelley & Bullington chart).
+ * Equation: C_o = 0.85032 - 0.04231 (d_o/l) + 0.0017954 (d_o/l)^2
+ * @param dO hole diameter [m]; @param l plate thickness [m]
+ * Validity: d_o/l >= 1 (and up to about 12 in the chart).
+ * Source: benitez2009 ch. 4 (Illus. 4.7). Example: d_o/l = 2.25 -> 0.76422
+ */
+export function orificeCoefficient(dO: number, l: number): number {
+  const r = dO / l
+  return 0.85032 - 0.04231 * r + 0.0017954 * r * r
+}
+export const orificeCoefficientValidity: ValidityRange = { arg: 'd_o/l', min: 1, max: 12, unit: '-' }
+
+/**
+ * Dry-tray head.
+ * Published form: h_d[cm] = 0.0051 (v_o/C_o)^2 rho_V (rho_w/rho_L) (1 - (A_h/A_a)^2), rho_w = 1000
+ * SI form used: h_d[m] = (v_o/C_o)^2 rho_V / (2 g rho_L) (1 - (A_h/A_a)^2)   (0.0051 ~ 100/(2 g 1000))
+ * @param vo hole velocity [m/s]; @param Co orifice coefficient [-]
+ * @param rhoV, rhoL densities [kg/m3]; @param AhAa hole/active area [-]
+ * Source: benitez2009 ch. 4 (Illus. 4.7). Example: vo 10, Co 0.75, rhoV 1.2, rhoL 1000, AhAa 0.1 -> 0.010764 m
+ */
+export function dryTrayHead(vo: number, Co: number, rhoV: number, rhoL: number, AhAa: number): number {
+  const r = vo / Co
+  return ((r * r * rhoV) / (2 * G_ACC * rhoL)) * (1 - AhAa * AhAa)
+}
+
+/**
+ * Relative froth density.
+ * Equation: phi_e = exp(-12.55 K_s^0.91), K_s = v_a [rho_V/(rho_L - rho_V)]^0.5 (active area)
+ * Source: bennett1983 via benitez2009 ch. 4.
+ */
+export function frothDensity(Ks: number): number {
+  return Math.exp(-12.55 * Math.pow(Ks, 0.91))
+}
+
+/**
+ * Clear-liquid height on the tray (Bennett et al. 1983).
+ * Equation: h_L = phi_e [h_w + C (q_L/(L_w phi_e))^(2/3)], C = 0.5012 + 0.4389 exp(-137.8 h_w)  (SI, m)
+ *   (published in cm: C_l = 50.12 + 43.89 exp(-1.378 h_w[cm]))
+ * @param phiE froth density [-]; @param hw weir height [m]; @param qL liquid flow [m3/s]; @param Lw weir length [m]
+ * Source: bennett1983 via benitez2009 ch. 4. Example: phi 0.5, hw 0.05, q 0.005, Lw 1 -> 0.03680 m
+ */
+export function clearLiquidHeight(phiE: number, hw: number, qL: number, Lw: number): number {
+  const C = 0.5012 + 0.4389 * Math.exp(-137.8 * hw)
+  return phiE * (hw + C * Math.pow(qL / (Lw * phiE), 2 / 3))
+}
+
+/**
+ * Residual (surface-tension) head. Equation: h_sigma = 6 sigma/(g rho_L d_o)
+ * Source: benitez2009 ch. 4. Example: sigma 0.07, rhoL 995, do 4.5 mm -> 0.009564 m
+ */
+export function residualHead(sigma: number, rhoL: number, dO: number): number {
+  return (6 * sigma) / (G_ACC * rhoL * dO)
+}
+
+/**
+ * Weeping criterion (hole Froude number).
+ * Equation: Fr_h = [rho_V v_o^2 / (rho_L g h_L)]^0.5; Fr_h >= 0.5: weeping not significant
+ * Source: benitez2009 ch. 4 (Illus. 4.8). Example: rhoV 1.8, vo 12, rhoL 995, hL 0.03 -> 2.94
+ */
+export function holeFroudeNumber(rhoV: number, vo: number, rhoL: number, hL: number): number {
+  return Math.sqrt((rhoV * vo * vo) / (rhoL * G_ACC * hL))
+}
+export const WEEP_FROUDE_LIMIT = 0.5
+
+/**
+ * Entrainment, kg liquid per kg gas (closed form of Benitez eqs 4.45-4.47).
+ * Equations: k = 0.5 [1 - tanh(1.3 ln(h_L/d_o) - 0.15)]
+ *   h_2phi = h_L/phi_e + 7.79 [1 + 6.9 (d_o/h_L)^1.85] K_s^2/(phi_e g A_h/A_a)
+ *   E = 0.00335 (h_2phi/t)^1.1 (rho_L/rho_V)^0.5 (h_L/h_2phi)^k
+ * @param hL clear liquid height [m]; @param dO hole diameter [m]; @param phiE froth density [-]
+ * @param Ks capacity parameter on active area [m/s]; @param AhAa [-]; @param t spacing [m]
+ * Source: benitez2009 eqs 4.45-4.47 (original author not named there).
+ */
+export function entrainmentBenitez(hL: number, dO: number, phiE: number, Ks: number, AhAa: number, t: number, rhoL: number, rhoV: number): number {
+  const k = 0.5 * (1 - Math.tanh(1.3 * Math.log(hL / dO) - 0.15))
+  const h2p = hL / phiE + (7.79 * (1 + 6.9 * Math.pow(dO / hL, 1.85)) * Ks * Ks) / (phiE * G_ACC * AhAa)
+  return 0.00335 * Math.pow(h2p / t, 1.1) * Math.sqrt(rhoL / rhoV) * Math.pow(hL / h2p, k)
+}
+
+/**
+ * Weir crest (Francis). Published: h_ow[mm] = 750 [L_w/(rho_L l_w)]^(2/3), L_w kg/s, l_w m.
+ * SI: h_ow[m] = 0.75 (q_L/l_w)^(2/3), q_L in m3/s.
+ * Source: sinnott2005 sec. 11.13. Example: 10 kg/s, 1000 kg/m3, 0.8 m -> 40.40 mm
+ */
+export function weirCrestFrancis(qL: number, Lw: number): number {
+  return 0.75 * Math.pow(qL / Lw, 2 / 3)
+}
+
+/**
+ * Downcomer entrance (apron) head loss.
+ * Equation: h_2 = (3/(2g)) (q/A_da)^2, A_da the smaller of apron clearance area and A_d
+ * Source: treybal1980 ch. 6 (Illus. 6.3).
+ */
+export function downcomerEntranceLoss(qL: number, Ada: number): number {
+  const v = qL / Ada
+  return (3 / (2 * G_ACC)) * v * v
+}
+
+/**
+ * Segmental downcomer geometry: chord angle theta from A_d/A_t = (theta - sin theta)/(2 pi),
+ * weir length L_w = D sin(theta/2). Source: benitez2009 ch. 4. Example: A_d/A_t = 0.1 -> L_w/D = 0.7267
+ */
+export function weirLengthRatio(AdAt: number): number {
+  // Newton on f(theta) = theta - sin(theta) - 2 pi AdAt
+  const target = 2 * Math.PI * AdAt
+  let th = Math.cbrt(6 * target) // small-angle start: theta^3/6 ~ target
+  for (let i = 0; i < 30; i++) {
+    const f = th - Math.sin(th) - target
+    const df = 1 - Math.cos(th)
+    const step = f / df
+    th -= step
+    if (Math.abs(step) < 1e-13) break
+  }
+  return Math.sin(th / 2)
+}

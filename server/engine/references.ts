@@ -1,0 +1,216 @@
+/**
+ * Bibliography of the design engine, by key. Every correlation's doc block names its
+ * source by one of these keys. `tag` follows the engineering-references file:
+ * 'C' read in the named source, 'D' derived from a C formula, 'M' from memory (to be
+ * confirmed before it becomes a hard test value), 'CP' common practice.
+ */
+export interface Reference {
+  key: string
+  authors: string
+  title: string
+  year: number
+  publisher?: string
+  isbn?: string
+  doi?: string
+  page?: string
+  note?: string
+  tag: 'C' | 'D' | 'M' | 'CP'
+}
+
+export const REFERENCES = {
+  codata2018: {
+    key: 'codata2018',
+    authors: 'Tiesinga, E.; Mohr, P. J.; Newell, D. B.; Taylor, B. N.',
+    title: 'CODATA recommended values of the fundamental physical constants: 2018',
+    year: 2021,
+    doi: '10.1103/RevModPhys.93.025010',
+    note: 'R = N_A k = 8.314 462 618 15 J/(mol K), exact since the 2019 SI revision',
+    tag: 'C',
+  },
+  iapwsR176: {
+    key: 'iapwsR176',
+    authors: 'International Association for the Properties of Water and Steam',
+    title: 'IAPWS R1-76(2014): Revised Release on Surface Tension of Ordinary Water Substance',
+    year: 2014,
+    note: 'sigma = 235.8 tau^1.256 (1 - 0.625 tau) mN/m, tau = 1 - T/647.096 K',
+    tag: 'C',
+  },
+  kell1975: {
+    key: 'kell1975',
+    authors: 'Kell, G. S.',
+    title: 'Density, thermal expansivity, and compressibility of liquid water from 0 to 150 C',
+    year: 1975,
+    doi: '10.1021/je60064a005',
+    page: 'J. Chem. Eng. Data 20(1), 97-105, eq. 16',
+    note: 'constants from memory; checked against IAPWS-95 values at 20, 25, 30 C in the tests',
+    tag: 'M',
+  },
+  waterViscosityVogel: {
+    key: 'waterViscosityVogel',
+    authors: 'Al-Shemmeri, T. (quoting the Vogel-type fit of water viscosity)',
+    title: 'Engineering Fluid Mechanics',
+    year: 2012,
+    isbn: '978-87-403-0114-4',
+    note: 'mu = 2.414e-5 * 10^(247.8/(T - 140)) Pa s, T in K; from memory; checked against IAPWS 2008 values in the tests',
+    tag: 'M',
+  },
+  iapws2008viscosity: {
+    key: 'iapws2008viscosity',
+    authors: 'Huber, M. L. et al.',
+    title: 'New international formulation for the viscosity of H2O',
+    year: 2009,
+    doi: '10.1063/1.3088050',
+    note: 'check values only (0.89002 mPa s at 25 C, 0.1 MPa)',
+    tag: 'C',
+  },
+  sander2015: {
+    key: 'sander2015',
+    authors: 'Sander, R.',
+    title: "Compilation of Henry's law constants (version 4.0) for water as solvent",
+    year: 2015,
+    doi: '10.5194/acp-15-4399-2015',
+    page: 'Atmos. Chem. Phys. 15, 4399-4981',
+    tag: 'C',
+  },
+  sander2023: {
+    key: 'sander2023',
+    authors: 'Sander, R.',
+    title: "Compilation of Henry's law constants (version 5.0.0) for water as solvent",
+    year: 2023,
+    doi: '10.5194/acp-23-10901-2023',
+    page: 'Atmos. Chem. Phys. 23, 10901-12440',
+    tag: 'C',
+  },
+  kremser1930: {
+    key: 'kremser1930',
+    authors: 'Kremser, A.',
+    title: 'Theoretical analysis of absorption process',
+    year: 1930,
+    page: 'Natl. Petroleum News 22(21), 43',
+    note: 'used in the form of Benitez 2009, eq. 5.x (Illustration 5.1)',
+    tag: 'C',
+  },
+  benitez2009: {
+    key: 'benitez2009',
+    authors: 'Benitez, J.',
+    title: 'Principles and Modern Applications of Mass Transfer Operations, 2nd ed.',
+    year: 2009,
+    publisher: 'Wiley',
+    isbn: '978-0-470-18178-2',
+    page: 'ch. 4 (eqs 4.29-4.47, sieve-tray hydraulics), ch. 5 (Kremser), Illus. 6.7',
+    tag: 'C',
+  },
+  treybal1980: {
+    key: 'treybal1980',
+    authors: 'Treybal, R. E.',
+    title: 'Mass-Transfer Operations, 3rd ed.',
+    year: 1980,
+    publisher: 'McGraw-Hill',
+    isbn: '0-07-065176-0',
+    page: 'ch. 6, Table 6.1 (tray spacing), Table 6.2 (flooding constants), eq. 6.31, Illus. 6.3',
+    tag: 'C',
+  },
+  fair1961: {
+    key: 'fair1961',
+    authors: 'Fair, J. R.',
+    title: 'How to predict sieve tray entrainment and flooding',
+    year: 1961,
+    page: 'Petro/Chem Engineer 33(10), 45',
+    note: 'used through the curve fit of Treybal Table 6.2 / Benitez eqs 4.29-4.32',
+    tag: 'C',
+  },
+  bennett1983: {
+    key: 'bennett1983',
+    authors: 'Bennett, D. L.; Agrawal, R.; Cook, P. J.',
+    title: 'New pressure drop correlation for sieve tray distillation columns',
+    year: 1983,
+    doi: '10.1002/aic.690290307',
+    page: 'AIChE J. 29(3), 434-442 (as given in Benitez 2009, ch. 4)',
+    tag: 'C',
+  },
+  oconnell1946: {
+    key: 'oconnell1946',
+    authors: "O'Connell, H. E.",
+    title: 'Plate efficiency of fractionating columns and absorbers',
+    year: 1946,
+    page: 'Trans. AIChE 42, 741-755',
+    note: 'absorber form as the Edmister-type fit given by Seader & Henley (from memory)',
+    tag: 'M',
+  },
+  seaderHenley2011: {
+    key: 'seaderHenley2011',
+    authors: 'Seader, J. D.; Henley, E. J.; Roper, D. K.',
+    title: 'Separation Process Principles, 3rd ed.',
+    year: 2011,
+    publisher: 'Wiley',
+    isbn: '978-0-470-48183-7',
+    page: 'ch. 6 (absorber efficiency fit)',
+    tag: 'M',
+  },
+  sinnott2005: {
+    key: 'sinnott2005',
+    authors: 'Sinnott, R. K.',
+    title: "Coulson & Richardson's Chemical Engineering Vol. 6: Chemical Engineering Design, 4th ed.",
+    year: 2005,
+    publisher: 'Elsevier Butterworth-Heinemann',
+    isbn: '0-7506-6538-6',
+    page: 'sec. 11.13 (Francis weir crest, downcomer backup and residence time), sec. 13.5 (minimum wall thickness)',
+    tag: 'C',
+  },
+  asmeVIII1: {
+    key: 'asmeVIII1',
+    authors: 'ASME',
+    title: 'Boiler and Pressure Vessel Code, Section VIII Division 1, UG-27 (thickness of shells under internal pressure)',
+    year: 2023,
+    note: 't = P R/(S E - 0.6 P); valid for t <= R/2 and P <= 0.385 S E',
+    tag: 'C',
+  },
+  kister1992: {
+    key: 'kister1992',
+    authors: 'Kister, H. Z.',
+    title: 'Distillation Design',
+    year: 1992,
+    publisher: 'McGraw-Hill',
+    isbn: '0-07-034909-6',
+    note: 'foaming (system) factors, e.g. about 0.9 for alcohol absorbers (from memory)',
+    tag: 'M',
+  },
+  antoineYaws: {
+    key: 'antoineYaws',
+    authors: 'Dean, J. A. (ed.)',
+    title: "Lange's Handbook of Chemistry, 15th ed., Table 5.8 (Antoine constants)",
+    year: 1999,
+    publisher: 'McGraw-Hill',
+    isbn: '0-07-016384-7',
+    note: 'constants used from memory; log10(P/mmHg) = A - B/(C + t/degC)',
+    tag: 'M',
+  },
+  perry2008: {
+    key: 'perry2008',
+    authors: 'Green, D. W.; Perry, R. H. (eds.)',
+    title: "Perry's Chemical Engineers' Handbook, 8th ed.",
+    year: 2008,
+    publisher: 'McGraw-Hill',
+    isbn: '978-0-07-142294-9',
+    note: 'gas viscosities, molar masses, hazard classes (values used from memory)',
+    tag: 'M',
+  },
+  fritschCarlson1980: {
+    key: 'fritschCarlson1980',
+    authors: 'Fritsch, F. N.; Carlson, R. E.',
+    title: 'Monotone piecewise cubic interpolation',
+    year: 1980,
+    doi: '10.1137/0717021',
+    page: 'SIAM J. Numer. Anal. 17(2), 238-246',
+    tag: 'C',
+  },
+  commonPractice: {
+    key: 'commonPractice',
+    authors: 'Scrubwright engineering team',
+    title: 'Common practice of the trade (rules of thumb used as editable defaults)',
+    year: 2026,
+    tag: 'CP',
+  },
+} as const satisfies Record<string, Reference>
+
+export type ReferenceKey = keyof typeof REFERENCES

@@ -1,0 +1,50 @@
+/**
+ * Preliminary pressure-vessel shell: thickness and weight. Always reported with the
+ * caution that this is a preliminary estimate only.
+ */
+
+export const VESSEL_CAUTION =
+  'Preliminary estimate only: the shell thickness and weight come from the thin-wall formula and a minimum-thickness rule; the final design must be made to the local pressure-vessel code (e.g. ASME VIII-1, EN 13445) by a licensed engineer, including wind, seismic, vacuum and nozzle loads.'
+
+/**
+ * Shell thickness for internal pressure (circumferential stress, thin wall).
+ * Equation: t = P R/(S E - 0.6 P) + CA
+ * @param P design pressure, gauge [Pa]; @param R inside radius [m]
+ * @param S allowable stress [Pa]; @param E joint efficiency [-]; @param CA corrosion allowance [m]
+ * @returns thickness [m]
+ * Validity: t <= R/2 and P <= 0.385 S E.
+ * Source: asmeVIII1 UG-27(c)(1). Example: P 1.5 MPa, D 600 mm, S 138 MPa, E 1, CA 3 mm -> 6.28 mm
+ */
+export function shellThicknessThinWall(P: number, R: number, S: number, E: number, CA: number): number {
+  return (P * R) / (S * E - 0.6 * P) + CA
+}
+
+export interface MinThicknessRow {
+  maxDiameter: number // m
+  thickness: number // m, including corrosion allowance
+}
+/** Minimum wall for rigidity by diameter (sinnott2005 sec. 13.5, incl. 2 mm CA; from memory). */
+export const DEFAULT_MIN_THICKNESS: readonly MinThicknessRow[] = [
+  { maxDiameter: 1, thickness: 0.005 },
+  { maxDiameter: 2, thickness: 0.007 },
+  { maxDiameter: 2.5, thickness: 0.009 },
+  { maxDiameter: 3, thickness: 0.01 },
+  { maxDiameter: 3.5, thickness: 0.012 },
+]
+
+export function minimumThickness(rule: readonly MinThicknessRow[], D: number): number {
+  for (let i = 0; i < rule.length; i++) if (D <= rule[i]!.maxDiameter + 1e-12) return rule[i]!.thickness
+  return rule[rule.length - 1]!.thickness
+}
+
+/**
+ * Steel mass of a cylindrical shell with two 2:1 semi-ellipsoidal heads.
+ * Equation: m = rho t [pi D_m L + 2 (1.084 D_m^2)], D_m = D + t (mean diameter);
+ *   1.084 D^2 is the surface area of a 2:1 elliptical head (from memory; common practice).
+ * @param D inside diameter [m]; @param L tangent-to-tangent length [m]; @param t wall [m]; @param rho steel density [kg/m3]
+ * Source: commonPractice. Example: D 1.2, L 12, t 0.006, rho 7850 -> 2,249 kg
+ */
+export function shellMass(D: number, L: number, t: number, rho: number): number {
+  const Dm = D + t
+  return rho * t * (Math.PI * Dm * L + 2 * 1.084 * Dm * Dm)
+}

@@ -1,0 +1,41 @@
+import { http, type Query } from './http.ts'
+import type { CaseInput, OptionView, Paged, RunView, StudyRow, StudyView } from './types.ts'
+
+export interface StudyListQuery extends Query {
+  page: number
+  pageSize: number
+  status?: string
+  q?: string
+  sort?: string
+}
+
+const base = (siteId: number) => `/sites/${siteId}/studies`
+
+export const studiesApi = {
+  list: (siteId: number, query: StudyListQuery): Promise<Paged<StudyRow>> => http.get(base(siteId), { query }),
+  create: (siteId: number, body: { name: string; description: string; inputs: CaseInput }): Promise<StudyView> =>
+    http.post(base(siteId), body),
+  get: (siteId: number, studyId: number): Promise<StudyView> => http.get(`${base(siteId)}/${studyId}`),
+  update: (
+    siteId: number,
+    studyId: number,
+    body: { name: string; description: string; inputs: CaseInput; search?: Record<string, unknown> | null; lockVersion: number },
+  ): Promise<StudyView> => http.put(`${base(siteId)}/${studyId}`, body),
+  archive: (siteId: number, studyId: number): Promise<unknown> => http.post(`${base(siteId)}/${studyId}/archive`, {}),
+  run: (siteId: number, studyId: number, kind: 'design' | 'optimize'): Promise<RunView> =>
+    http.post(`${base(siteId)}/${studyId}/runs`, { kind }),
+  runs: (siteId: number, studyId: number): Promise<RunView[]> => http.get(`${base(siteId)}/${studyId}/runs`),
+  getRun: (siteId: number, studyId: number, runId: number): Promise<RunView> =>
+    http.get(`${base(siteId)}/${studyId}/runs/${runId}`),
+  pin: (siteId: number, studyId: number, body: { runId: number; name: string; notes: string }): Promise<OptionView> =>
+    http.post(`${base(siteId)}/${studyId}/options`, body),
+  options: (siteId: number, studyId: number): Promise<OptionView[]> => http.get(`${base(siteId)}/${studyId}/options`),
+  removeOption: (siteId: number, studyId: number, optionId: number): Promise<unknown> =>
+    http.del(`${base(siteId)}/${studyId}/options/${optionId}`),
+}
+
+/** Some list endpoints may answer a bare array or { items }; accept both. */
+export function itemsOf<T>(v: T[] | { items: T[] } | null | undefined): T[] {
+  if (!v) return []
+  return Array.isArray(v) ? v : v.items
+}

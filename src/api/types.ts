@@ -1,0 +1,302 @@
+/**
+ * Client-side types for the API parts that have no shared schema (yet): the case,
+ * design and optimisation results, studies, runs, options and cost-basis versions.
+ * They follow the server's documented contract; unknown extra fields are kept.
+ */
+import type { StudyStatus } from '@shared/schemas/common.ts'
+import type { CostBasisInput } from '@shared/schemas/costBasis.ts'
+
+/** A bare number in the case unit, or a value with its unit. */
+export type Quantity = number | { value: number; unit: string }
+
+export interface CaseGas {
+  flow: Quantity
+  temperature: Quantity
+  pressure: Quantity
+  soluteMoleFraction: number
+  carrier?: string
+  carrierMolarMass?: Quantity
+}
+
+export type CaseSolute = string | { name?: string; molarMass: Quantity; [k: string]: unknown }
+export type CaseSolvent = string | { name?: string; molarMass?: Quantity; [k: string]: unknown }
+
+export interface TablePoint {
+  x: number
+  y: number
+}
+
+export type CaseEquilibrium =
+  | { model: 'constantK'; K: number }
+  | { model: 'henry'; [k: string]: unknown }
+  | { model: 'modifiedRaoult'; [k: string]: unknown }
+  | { model: 'table'; points: TablePoint[]; [k: string]: unknown }
+
+export type EquilibriumModel = CaseEquilibrium['model']
+
+export interface CaseTray {
+  holeDiameter?: Quantity
+  holePitch?: Quantity
+  thickness?: Quantity
+  spacing?: Quantity | 'auto'
+  floodFraction?: number
+  foamingFactor?: number
+  weirHeight?: Quantity
+  [k: string]: unknown
+}
+
+export type CaseEfficiency = { model: 'oconnell' } | { model: 'fixed'; value: number }
+
+export interface CaseInput {
+  name?: string
+  gas: CaseGas
+  solute: CaseSolute
+  solvent: CaseSolvent
+  equilibrium: CaseEquilibrium
+  recovery: number
+  solventFactor: number
+  tray: CaseTray
+  efficiency: CaseEfficiency
+  [k: string]: unknown
+}
+
+export interface CheckResult {
+  key: string
+  label: string
+  status: 'pass' | 'warn' | 'fail'
+  value: number
+  limit: number
+  unit: string
+  advice?: string
+}
+
+export interface EngineWarning {
+  code: string
+  message: string
+  path?: string
+}
+
+/** Design summary: SI, molar flows in kmol/h. */
+export interface DesignSummary {
+  minimumSolventFlow: number
+  solventFlow: number
+  absorptionFactor: number
+  theoreticalStages: number
+  actualTrays: number
+  outletGasSoluteMoleFraction: number
+  richSolventSoluteMoleFraction: number
+  gasDensity: number
+  flowParameter: number
+  capacityFactor: number
+  floodingVelocity: number
+  downcomerAreaFraction: number
+  holeAreaFraction: number
+  traySpacing: number
+  diameter: number
+  selectedDiameter: number
+  pressureDropPerTray: number
+  columnPressureDrop: number
+  columnHeight: number
+  recovery: number
+  solventFactor: number
+  floodFraction: number
+  gasFlow: number
+  gasVolumetricFlow: number
+  solventMassFlow: number
+  solventVolumetricFlow: number
+  soluteInGas: number
+  soluteAbsorbed: number
+  soluteLost: number
+  operatingPressure: number
+  designPressure: number
+  shellThickness: number
+  shellMass: number
+  percentFlood: number
+  [k: string]: number
+}
+
+export interface XY {
+  x: number
+  y: number
+}
+
+export interface CapitalItem {
+  key: string
+  label: string
+  size: number
+  sizeUnit: string
+  purchased: number
+  installed: number
+  annual: number
+}
+
+export interface OperatingItem {
+  key: string
+  label: string
+  quantity: number
+  quantityUnit: string
+  annual: number
+}
+
+export interface CostBreakdown {
+  currency: string
+  costIndex?: number
+  capitalRecoveryFactor?: number
+  purchasedCapital?: number
+  installedCapital?: number
+  annualisedCapital: number
+  operatingCost: number
+  totalAnnualCost: number
+  soluteRecoveredPerYear?: number
+  costPerKgRecovered?: number
+  annual?: Record<string, number>
+  capital?: CapitalItem[]
+  operating?: OperatingItem[]
+  warnings?: EngineWarning[]
+}
+
+export interface DesignResult {
+  summary: DesignSummary
+  checks: CheckResult[]
+  warnings: EngineWarning[]
+  cautions: string[]
+  profile: {
+    method: 'kremser' | 'stageByStage'
+    stages: { stage: number; x: number; y: number }[]
+    equilibriumCurve: XY[]
+    operatingLine: XY[]
+  }
+  detail?: Record<string, unknown>
+  totalAnnualCost?: number
+  costBreakdown?: CostBreakdown
+}
+
+export interface CurvePoint {
+  x: number
+  tac: number
+  breakdown?: Record<string, number> | CostBreakdown
+  feasible: boolean
+}
+
+export interface SensitivityRow {
+  item: string
+  label: string
+  low: { tac: number; recovery: number; [k: string]: unknown }
+  high: { tac: number; recovery: number; [k: string]: unknown }
+}
+
+export interface OptimizeResult {
+  optimum: {
+    recovery: number
+    solventFactor: number
+    traySpacing: number
+    floodFraction: number
+    actualTrays: number
+    selectedDiameter: number
+    totalAnnualCost: number
+    breakdown?: CostBreakdown
+    design?: DesignResult
+  }
+  evaluations: number
+  curves: { recovery: CurvePoint[]; solventFactor: CurvePoint[] }
+  sensitivity: SensitivityRow[]
+}
+
+export interface StudyRow {
+  id: number
+  name: string
+  description?: string
+  status: StudyStatus
+  ownerName?: string | null
+  targetRecovery?: number | null
+  optimumTac?: number | null
+  lastRunAt?: string | null
+  updatedAt?: string
+  lockVersion: number
+}
+
+export interface Paged<T> {
+  items: T[]
+  total: number
+  page: number
+  pageSize: number
+}
+
+export interface RunView {
+  id: number
+  kind: 'design' | 'optimize'
+  createdAt: string
+  costBasisVersion?: number | string | null
+  engineVersion?: string | null
+  result: DesignResult | OptimizeResult | null
+  [k: string]: unknown
+}
+
+export interface OptionView {
+  id: number
+  name: string
+  notes?: string | null
+  runId: number
+  createdAt?: string
+  run?: RunView | null
+  result?: DesignResult | OptimizeResult | null
+  inputs?: CaseInput | null
+  [k: string]: unknown
+}
+
+export interface StudyView extends StudyRow {
+  siteId?: number
+  inputs: CaseInput
+  search?: Record<string, unknown> | null
+  options?: OptionView[]
+  [k: string]: unknown
+}
+
+export interface CostBasisVersionRow {
+  id: number
+  version: number
+  status: 'draft' | 'published'
+  name: string
+  notes?: string | null
+  effectiveDate?: string | null
+  publishedAt?: string | null
+  lockVersion: number
+  [k: string]: unknown
+}
+
+export interface CostBasisVersion extends CostBasisVersionRow {
+  data: CostBasisInput
+}
+
+export interface CostPreset {
+  key?: string
+  id?: string
+  name: string
+  source?: string
+  [k: string]: unknown
+}
+
+export interface ComponentEntry {
+  key?: string
+  id?: string
+  name: string
+  molarMass?: number
+  formula?: string
+  [k: string]: unknown
+}
+
+/** True when a run result is an optimisation result. */
+export function isOptimizeResult(r: unknown): r is OptimizeResult {
+  return typeof r === 'object' && r !== null && 'optimum' in r && 'curves' in r
+}
+
+export function isDesignResult(r: unknown): r is DesignResult {
+  return typeof r === 'object' && r !== null && 'summary' in r && 'checks' in r
+}
+
+/** The design inside a run result, whichever kind. */
+export function designOf(r: unknown): DesignResult | null {
+  if (isDesignResult(r)) return r
+  if (isOptimizeResult(r)) return r.optimum.design ?? null
+  return null
+}

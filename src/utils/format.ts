@@ -1,0 +1,38 @@
+/** Number formatting for tables and summaries (browser locale, fixed significant digits). */
+
+export function fmtNumber(v: number | null | undefined, digits = 3): string {
+  if (v == null || !Number.isFinite(v)) return '–'
+  const a = Math.abs(v)
+  if (a !== 0 && (a < 1e-3 || a >= 1e7)) return v.toExponential(digits - 1)
+  const decimals = a === 0 ? 0 : Math.max(0, digits - 1 - Math.floor(Math.log10(a)))
+  return v.toLocaleString(undefined, { maximumFractionDigits: Math.min(decimals, 6), minimumFractionDigits: 0 })
+}
+
+export function fmtFixed(v: number | null | undefined, decimals = 2): string {
+  if (v == null || !Number.isFinite(v)) return '–'
+  return v.toLocaleString(undefined, { maximumFractionDigits: decimals, minimumFractionDigits: decimals })
+}
+
+export function fmtMoney(v: number | null | undefined): string {
+  if (v == null || !Number.isFinite(v)) return '–'
+  return Math.round(v).toLocaleString()
+}
+
+export function fmtPercent(fraction: number | null | undefined, decimals = 1): string {
+  if (fraction == null || !Number.isFinite(fraction)) return '–'
+  return (fraction * 100).toLocaleString(undefined, { maximumFractionDigits: decimals, minimumFractionDigits: decimals })
+}
+
+export function fmtDateTime(iso: string | null | undefined): string {
+  if (!iso) return '–'
+  const d = new Date(iso)
+  if (Number.isNaN(d.getTime())) return '–'
+  return d.toLocaleString(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' })
+}
+
+export function fmtDate(iso: string | null | undefined): string {
+  if (!iso) return '–'
+  const d = new Date(iso)
+  if (Number.isNaN(d.getTime())) return '–'
+  return d.toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric' })
+}

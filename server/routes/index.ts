@@ -1,8 +1,12 @@
 import type { Router } from 'express'
 import type { Config } from '../config.ts'
 import { costBasisRoutes } from './cost-bases.ts'
+import { designRoutes } from './designs.ts'
+import { studyRoutes } from './studies.ts'
 
 /** Feature routes beyond identity: designs, cost bases, studies, runs, review... */
 export function registerFeatureRoutes(router: Router, _cfg: Config): void {
+  designRoutes(router)
   costBasisRoutes(router)
+  studyRoutes(router)
 }

@@ -1,0 +1,71 @@
+import type { Router } from 'express'
+import { defineRoutes, parse, ANY_ROLE } from './define.ts'
+import * as svc from '../services/studies.ts'
+import * as runs from '../services/runs.ts'
+import { idParam } from '../../shared/schemas/common.ts'
+import { studyListQuery, createStudyBody, updateStudyBody, createRunBody, createOptionBody } from '../../shared/schemas/studies.ts'
+
+const study = (p: unknown) => parse(idParam, p, 'params.studyId')
+
+export function studyRoutes(router: Router): Router {
+  return defineRoutes(router, [
+    {
+      method: 'get', path: '/sites/:siteId/studies', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Studies of the site: paged, filtered (status, q) and sorted',
+      handler: (req) => svc.listStudies(req.site!.id, parse(studyListQuery, req.query, 'query')),
+    },
+    {
+      method: 'post', path: '/sites/:siteId/studies', access: { kind: 'site', roles: ['engineer'] }, summary: 'Create a study with its case',
+      handler: (req) => svc.createStudy(req.site!.id, parse(createStudyBody, req.body), req.user!, req.requestId),
+    },
+    {
+      method: 'get', path: '/sites/:siteId/studies/:studyId', access: { kind: 'site', roles: ANY_ROLE }, summary: 'One study with runs, options and what the caller may do',
+      handler: (req) => svc.getStudy(req.site!.id, study(req.params.studyId), req.user!),
+    },
+    {
+      method: 'put', path: '/sites/:siteId/studies/:studyId', access: { kind: 'site', roles: ['engineer'] }, summary: 'Edit a draft or returned study (optimistic locking on lockVersion)',
+      handler: (req) => svc.updateStudy(req.site!.id, study(req.params.studyId), parse(updateStudyBody, req.body), req.user!, req.requestId),
+    },
+    {
+      method: 'post', path: '/sites/:siteId/studies/:studyId/archive', access: { kind: 'site', roles: ['engineer'] }, summary: 'Archive a study',
+      handler: async (req, res) => {
+        res.status(200).json(await svc.archiveStudy(req.site!.id, study(req.params.studyId), req.user!, req.requestId))
+      },
+    },
+    {
+      method: 'get', path: '/sites/:siteId/studies/:studyId/runs', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Runs of a study, newest first',
+      handler: (req) => runs.listRuns(req.site!.id, study(req.params.studyId)),
+    },
+    {
+      method: 'post', path: '/sites/:siteId/studies/:studyId/runs', access: { kind: 'site', roles: ['engineer'] }, summary: 'Evaluate or optimise the study with the cost basis in force, and store the run',
+      handler: (req) => runs.createRun(req.site!.id, study(req.params.studyId), parse(createRunBody, req.body).kind, req.user!, req.requestId),
+    },
+    {
+      method: 'get', path: '/sites/:siteId/studies/:studyId/runs/:runId', access: { kind: 'site', roles: ANY_ROLE }, summary: 'One stored run, exactly as computed',
+      handler: (req) => runs.getRun(req.site!.id, study(req.params.studyId), parse(idParam, req.params.runId, 'params.runId')),
+    },
+    {
+      method: 'post', path: '/sites/:siteId/studies/:studyId/runs/:runId/compare-current', access: { kind: 'site', roles: ANY_ROLE },
+      summary: 'Recompute a stored run against the newest published cost basis (not stored) and list what changed',
+      handler: async (req, res) => {
+        res.status(200).json(await runs.compareWithCurrent(req.site!.id, study(req.params.studyId), parse(idParam, req.params.runId, 'params.runId')))
+      },
+    },
+    {
+      method: 'get', path: '/sites/:siteId/studies/:studyId/options', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Pinned options with headline numbers',
+      handler: async (req) => {
+        await svc.findStudy(req.site!.id, study(req.params.studyId))
+        return svc.listOptions(study(req.params.studyId))
+      },
+    },
+    {
+      method: 'post', path: '/sites/:siteId/studies/:studyId/options', access: { kind: 'site', roles: ['engineer'] }, summary: 'Pin a run as a named option',
+      handler: (req) => svc.pinOption(req.site!.id, study(req.params.studyId), parse(createOptionBody, req.body), req.user!, req.requestId),
+    },
+    {
+      method: 'delete', path: '/sites/:siteId/studies/:studyId/options/:optionId', access: { kind: 'site', roles: ['engineer'] }, summary: 'Unpin an option',
+      handler: async (req) => {
+        await svc.removeOption(req.site!.id, study(req.params.studyId), parse(idParam, req.params.optionId, 'params.optionId'), req.user!, req.requestId)
+      },
+    },
+  ])
+}

@@ -1,0 +1,94 @@
+import { caseSchema } from '../../shared/schemas/case.ts'
+import { costBasisSchema, type CostBasisData } from '../../shared/schemas/costBasis.ts'
+import { searchSpecSchema, type SearchSpec } from '../../shared/schemas/search.ts'
+import { normaliseCase, mergeLibraries, type ComponentLibrary, type CaseSI } from '../engine/case.ts'
+import { designSI } from '../engine/design.ts'
+import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
+import { priceDesign } from '../engine/costing/index.ts'
+import { optimise } from '../engine/optimisation/index.ts'
+import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
+import type { DesignResult } from '../engine/contract.ts'
+import { ValidationError, InfeasibleError, AppError } from '../errors.ts'
+import { zodDetails } from '../middleware/error-handler.ts'
+import baseLibraryJson from '../../data/components.json' with { type: 'json' }
+
+/**
+ * The one door from the API to the engine: validates with the shared schemas, normalises units,
+ * runs the pure engine and turns its typed errors into API errors (400 with field paths for bad
+ * input, 422 with structured reasons for infeasible designs).
+ */
+export const baseLibrary = baseLibraryJson as unknown as ComponentLibrary
+
+export function libraryWith(extra?: ComponentLibrary): ComponentLibrary {
+  return mergeLibraries(baseLibrary, extra)
+}
+
+function prefixed(prefix: string, path: string): string {
+  return [prefix, path].filter(Boolean).join('.')
+}
+
+/** Map an engine error to the API's error family; anything else is re-thrown. */
+export function toApiError(e: unknown, prefix: string): never {
+  if (e instanceof InvalidInputError) {
+    throw new ValidationError('The case is not valid.', e.issues.map((i) => ({ path: prefix ? prefixed(prefix, i.path) : i.path, message: i.message, code: i.code })))
+  }
+  if (e instanceof InfeasibleDesignError) {
+    throw new InfeasibleError('No design meets these inputs.', e.issues.map((i) => ({ path: prefix ? prefixed(prefix, i.path) : i.path, message: i.message, code: i.code })))
+  }
+  if (e instanceof NoFeasibleDesignError) {
+    throw new InfeasibleError(e.message, [{ path: prefixed(prefix.replace(/\.?case$/, ''), 'search'), message: e.message, code: 'noFeasibleDesign' }])
+  }
+  if (e instanceof ConvergenceError) {
+    throw new InfeasibleError('The calculation did not converge for these inputs.', [{ path: prefix, message: e.message, code: 'convergence' }])
+  }
+  throw e
+}
+
+export function parseCase(raw: unknown, library: ComponentLibrary, prefix = 'body'): CaseSI {
+  const r = caseSchema.safeParse(raw)
+  if (!r.success) throw new ValidationError('The case is not valid.', zodDetails(r.error, prefix))
+  try {
+    return normaliseCase(r.data, library)
+  } catch (e) {
+    return toApiError(e, prefix)
+  }
+}
+
+export function parseBasis(raw: unknown, prefix: string): CostBasisData {
+  const r = costBasisSchema.safeParse(raw)
+  if (!r.success) throw new ValidationError('The cost basis is not valid.', zodDetails(r.error, prefix))
+  return r.data
+}
+
+export function parseSearch(raw: unknown, prefix: string): SearchSpec {
+  const r = searchSpecSchema.safeParse(raw ?? {})
+  if (!r.success) throw new ValidationError('The search settings are not valid.', zodDetails(r.error, prefix))
+  return r.data
+}
+
+export type PricedDesign = DesignResult & { totalAnnualCost?: number; costBreakdown?: unknown }
+
+export function runDesign(c: CaseSI, basis: CostBasisData | null, prefix = 'body'): PricedDesign {
+  try {
+    const result: PricedDesign = designSI(c)
+    if (basis) Object.assign(result, priceDesign(result, basis))
+    return result
+  } catch (e) {
+    return toApiError(e, prefix)
+  }
+}
+
+export function runOptimise(c: CaseSI, basis: CostBasisData, search: SearchSpec, prefix = 'body.case') {
+  try {
+    return optimise(c, basis, search)
+  } catch (e) {
+    return toApiError(e, prefix)
+  }
+}
+
+/** Guard the JSON we return: the engine promises finite numbers; check it at the edge too. */
+export function assertFinite(value: unknown, path = 'result'): void {
+  if (typeof value === 'number' && !Number.isFinite(value)) throw new AppError(500, 'non_finite', `Non-finite number at ${path}`)
+  if (Array.isArray(value)) value.forEach((v, i) => assertFinite(v, `${path}[${i}]`))
+  else if (value && typeof value === 'object') for (const [k, v] of Object.entries(value)) assertFinite(v, `${path}.${k}`)
+}

@@ -1,0 +1,270 @@
+import { Op, type WhereOptions, type Order } from 'sequelize'
+import { sequelize } from '../db/sequelize.ts'
+import { Study, User, Run, StudyOption, StudyView } from '../db/models/index.ts'
+import { ConflictError, NotFoundError, ForbiddenError } from '../errors.ts'
+import { audit } from './audit.ts'
+import type { AuthUser } from '../types.d.ts'
+import type { Role, StudyStatus } from '../../shared/schemas/common.ts'
+import type { StudyRow, RunRow, OptionRow } from '../../shared/schemas/studies.ts'
+
+/** What the caller may do with a study, for the client to show or hide controls. */
+export interface StudyPermissions {
+  edit: boolean
+  run: boolean
+  pin: boolean
+  submit: boolean
+  review: boolean
+  comment: boolean
+  archive: boolean
+  logOperation: boolean
+}
+
+export const EDITABLE: readonly StudyStatus[] = ['draft', 'returned']
+
+export function permissionsFor(role: Role | null, isAdmin: boolean, status: StudyStatus): StudyPermissions {
+  const engineer = role === 'engineer'
+  const reviewer = role === 'reviewer' || (isAdmin && role === null)
+  const editable = EDITABLE.includes(status)
+  return {
+    edit: engineer && editable,
+    run: engineer && editable,
+    pin: engineer && editable,
+    submit: engineer && editable,
+    review: reviewer && status === 'in_review',
+    comment: role !== null || isAdmin,
+    archive: engineer && status !== 'archived' && status !== 'in_review',
+    logOperation: engineer && status === 'approved',
+  }
+}
+
+function row(s: Study & { owner?: User }): StudyRow {
+  return {
+    id: s.id,
+    name: s.name,
+    description: s.description,
+    status: s.status,
+    ownerId: s.ownerId as number,
+    ownerName: s.owner?.name ?? '',
+    targetRecovery: s.targetRecovery,
+    optimumTac: s.optimumTac,
+    lastRunAt: s.lastRunAt ? s.lastRunAt.toISOString() : null,
+    updatedAt: s.updatedAt.toISOString(),
+    revision: s.revision,
+    lockVersion: s.lockVersion,
+  }
+}
+
+export function runRow(r: Run, who?: Map<number, string>): RunRow {
+  return {
+    id: r.id,
+    studyId: r.studyId as number,
+    kind: r.kind,
+    costBasisId: r.costBasisId,
+    costBasisVersion: r.costBasisVersion,
+    engineVersion: r.engineVersion,
+    totalAnnualCost: r.totalAnnualCost,
+    createdAt: r.createdAt.toISOString(),
+    createdByName: r.createdBy ? (who?.get(r.createdBy) ?? null) : null,
+  }
+}
+
+function recoveryOf(inputs: unknown): number | null {
+  const r = (inputs as { recovery?: unknown } | null)?.recovery
+  return typeof r === 'number' ? r : null
+}
+
+export async function listStudies(
+  siteId: number,
+  q: { page: number; pageSize: number; status: StudyStatus[]; q?: string; sort: string; includeArchived?: 'true' | 'false' },
+) {
+  const where: WhereOptions = { siteId }
+  if (q.status.length) Object.assign(where, { status: q.status })
+  else if (q.includeArchived !== 'true') Object.assign(where, { status: { [Op.ne]: 'archived' } })
+  if (q.q) Object.assign(where, { name: { [Op.like]: `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%` } })
+  const desc = q.sort.startsWith('-')
+  const key = q.sort.replace(/^-/, '')
+  const order: Order = [[key, desc ? 'DESC' : 'ASC'], ['id', 'DESC']]
+  const { rows, count } = await Study.findAndCountAll({
+    where,
+    order,
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+    include: [{ model: User, as: 'owner', attributes: ['id', 'name'] }],
+    attributes: { exclude: ['inputs', 'search'] },
+  })
+  return { items: rows.map((s) => row(s as Study & { owner: User })), total: count, page: q.page, pageSize: q.pageSize }
+}
+
+export async function findStudy(siteId: number, studyId: number): Promise<Study> {
+  const s = await Study.findOne({ where: { id: studyId, siteId }, include: [{ model: User, as: 'owner', attributes: ['id', 'name'] }] })
+  if (!s) throw new NotFoundError('Study')
+  return s
+}
+
+export async function getStudy(siteId: number, studyId: number, user: AuthUser) {
+  const s = await findStudy(siteId, studyId)
+  const runs = await Run.findAll({ where: { studyId }, order: [['id', 'DESC']], limit: 50, attributes: { exclude: ['result', 'inputs', 'search'] } })
+  const who = await userNames(runs.map((r) => r.createdBy))
+  // Remember that this person looked (for "changed since you last looked").
+  const seen = await StudyView.findOne({ where: { userId: user.id, studyId } })
+  const lastSeenAt = seen?.seenAt ?? null
+  if (seen) await seen.update({ seenAt: new Date() })
+  else await StudyView.create({ userId: user.id, studyId, seenAt: new Date() })
+  return {
+    ...row(s as Study & { owner: User }),
+    inputs: s.inputs,
+    search: s.search,
+    parentStudyId: s.parentStudyId,
+    recommendedOptionId: s.recommendedOptionId,
+    runs: runs.map((r) => runRow(r, who)),
+    options: await listOptions(studyId),
+    lastSeenAt: lastSeenAt ? lastSeenAt.toISOString() : null,
+    can: permissionsFor(user.roles.get(siteId) ?? null, user.isAdmin, s.status),
+  }
+}
+
+export async function userNames(ids: (number | null)[]): Promise<Map<number, string>> {
+  const list = [...new Set(ids.filter((x): x is number => x !== null))]
+  if (!list.length) return new Map()
+  const users = await User.findAll({ where: { id: list }, attributes: ['id', 'name'] })
+  return new Map(users.map((u) => [u.id, u.name]))
+}
+
+export async function createStudy(
+  siteId: number,
+  body: { name: string; description: string; inputs: unknown; search?: Record<string, unknown> },
+  actor: AuthUser,
+  requestId: string,
+) {
+  const id = await sequelize.transaction(async (transaction) => {
+    const s = await Study.create(
+      {
+        siteId, ownerId: actor.id, name: body.name, description: body.description, inputs: body.inputs,
+        search: body.search ?? null, parentStudyId: null, recommendedOptionId: null, optimumTac: null,
+        targetRecovery: recoveryOf(body.inputs), lastRunAt: null,
+      },
+      { transaction },
+    )
+    await audit({ userId: actor.id, siteId, action: 'create', entity: 'study', entityId: s.id, after: { name: s.name }, requestId }, transaction)
+    return s.id
+  })
+  return getStudy(siteId, id, actor)
+}
+
+export async function updateStudy(
+  siteId: number,
+  studyId: number,
+  body: { name?: string; description?: string; inputs?: unknown; search?: Record<string, unknown> | null; lockVersion: number },
+  actor: AuthUser,
+  requestId: string,
+) {
+  await sequelize.transaction(async (transaction) => {
+    const s = await Study.findOne({ where: { id: studyId, siteId }, transaction, lock: transaction.LOCK.UPDATE })
+    if (!s) throw new NotFoundError('Study')
+    if (!EDITABLE.includes(s.status)) {
+      throw new ConflictError(
+        s.status === 'approved'
+          ? 'This study is approved and frozen; start a revision to change it.'
+          : `A study that is ${s.status.replace('_', ' ')} cannot be edited.`,
+      )
+    }
+    if (s.lockVersion !== body.lockVersion) {
+      throw new ConflictError('Someone else changed this study since you opened it; reload to see their changes.', [
+        { path: 'body.lockVersion', message: `is ${body.lockVersion}, current is ${s.lockVersion}` },
+      ])
+    }
+    const before = { name: s.name, description: s.description, inputs: s.inputs, search: s.search }
+    if (body.name !== undefined) s.name = body.name
+    if (body.description !== undefined) s.description = body.description
+    if (body.inputs !== undefined) {
+      s.inputs = body.inputs
+      s.targetRecovery = recoveryOf(body.inputs)
+    }
+    if (body.search !== undefined) s.search = body.search
+    s.lockVersion = s.lockVersion + 1
+    await s.save({ transaction })
+    await audit({ userId: actor.id, siteId, action: 'update', entity: 'study', entityId: s.id, before, after: { name: s.name, description: s.description, inputs: s.inputs, search: s.search }, requestId }, transaction)
+  })
+  return getStudy(siteId, studyId, actor)
+}
+
+export async function archiveStudy(siteId: number, studyId: number, actor: AuthUser, requestId: string) {
+  await sequelize.transaction(async (transaction) => {
+    const s = await Study.findOne({ where: { id: studyId, siteId }, transaction, lock: transaction.LOCK.UPDATE })
+    if (!s) throw new NotFoundError('Study')
+    if (s.status === 'archived') throw new ConflictError('This study is archived already.')
+    if (s.status === 'in_review') throw new ConflictError('A study in review cannot be archived; ask the reviewer to return it first.')
+    const before = s.status
+    s.status = 'archived'
+    s.lockVersion += 1
+    await s.save({ transaction })
+    await audit({ userId: actor.id, siteId, action: 'archive', entity: 'study', entityId: s.id, before: { status: before }, after: { status: 'archived' }, requestId }, transaction)
+  })
+  return getStudy(siteId, studyId, actor)
+}
+
+export async function listOptions(studyId: number): Promise<OptionRow[]> {
+  const opts = await StudyOption.findAll({ where: { studyId }, order: [['id', 'ASC']], include: [{ model: Run, as: 'run' }] })
+  const who = await userNames(opts.map((o) => (o as StudyOption & { run: Run }).run.createdBy))
+  return opts.map((o) => {
+    const run = (o as StudyOption & { run: Run }).run
+    return {
+      id: o.id,
+      studyId,
+      runId: o.runId,
+      name: o.name,
+      notes: o.notes,
+      createdAt: o.createdAt.toISOString(),
+      run: runRow(run, who),
+      summary: headline(run.result),
+    }
+  })
+}
+
+/** The headline numbers of a stored result (design or optimum). */
+export function headline(result: unknown): Record<string, number> | null {
+  const r = result as { summary?: Record<string, unknown>; optimum?: { design?: { summary?: Record<string, unknown> }; totalAnnualCost?: number }; totalAnnualCost?: number } | null
+  const summary = r?.summary ?? r?.optimum?.design?.summary
+  if (!summary) return null
+  const out: Record<string, number> = {}
+  for (const [k, v] of Object.entries(summary)) if (typeof v === 'number' && Number.isFinite(v)) out[k] = v
+  const tac = r?.totalAnnualCost ?? r?.optimum?.totalAnnualCost
+  if (typeof tac === 'number') out.totalAnnualCost = tac
+  return out
+}
+
+export async function pinOption(siteId: number, studyId: number, body: { runId: number; name: string; notes: string }, actor: AuthUser, requestId: string) {
+  const id = await sequelize.transaction(async (transaction) => {
+    const s = await Study.findOne({ where: { id: studyId, siteId }, transaction, lock: transaction.LOCK.UPDATE })
+    if (!s) throw new NotFoundError('Study')
+    if (!EDITABLE.includes(s.status)) throw new ConflictError('Options can only be pinned while the study is a draft or returned.')
+    const run = await Run.findOne({ where: { id: body.runId, studyId }, transaction })
+    if (!run) throw new ConflictError('That run does not belong to this study.', [{ path: 'body.runId', message: 'is not a run of this study' }])
+    const o = await StudyOption.create({ studyId, runId: run.id, name: body.name, notes: body.notes, createdBy: actor.id }, { transaction })
+    await audit({ userId: actor.id, siteId, action: 'pin_option', entity: 'study', entityId: studyId, after: { optionId: o.id, runId: run.id, name: o.name }, requestId }, transaction)
+    return o.id
+  })
+  const all = await listOptions(studyId)
+  return all.find((o) => o.id === id)!
+}
+
+export async function removeOption(siteId: number, studyId: number, optionId: number, actor: AuthUser, requestId: string) {
+  await sequelize.transaction(async (transaction) => {
+    const s = await Study.findOne({ where: { id: studyId, siteId }, transaction, lock: transaction.LOCK.UPDATE })
+    if (!s) throw new NotFoundError('Study')
+    if (!EDITABLE.includes(s.status)) throw new ConflictError('Options can only be removed while the study is a draft or returned.')
+    const o = await StudyOption.findOne({ where: { id: optionId, studyId }, transaction })
+    if (!o) throw new NotFoundError('Option')
+    if (s.recommendedOptionId === o.id) {
+      s.recommendedOptionId = null
+      await s.save({ transaction })
+    }
+    await o.destroy({ transaction })
+    await audit({ userId: actor.id, siteId, action: 'remove_option', entity: 'study', entityId: studyId, before: { optionId, name: o.name }, requestId }, transaction)
+  })
+}
+
+export function assertRole(user: AuthUser, siteId: number, roles: Role[]): void {
+  const r = user.roles.get(siteId)
+  if (!user.isAdmin && (!r || !roles.includes(r))) throw new ForbiddenError()
+}

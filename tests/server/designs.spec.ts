@@ -1,0 +1,110 @@
+import { describe, it, expect } from 'vitest'
+import { readFileSync } from 'node:fs'
+import { api, tokenFor, siteIds } from './helpers.ts'
+
+const demo = JSON.parse(readFileSync('data/demo-studies.json', 'utf8')) as { studies: { inputs: Record<string, unknown> }[] }
+const ethanolCase = demo.studies[0]!.inputs
+
+async function auth() {
+  return { Authorization: `Bearer ${await tokenFor('engineer')}` }
+}
+
+describe('POST /designs/evaluate', () => {
+  it('designs a case and returns the fixed summary keys, checks and the vessel caution', async () => {
+    const r = await api().post('/api/v1/designs/evaluate').set(await auth()).send(ethanolCase)
+    expect(r.status).toBe(200)
+    for (const k of [
+      'minimumSolventFlow', 'solventFlow', 'absorptionFactor', 'theoreticalStages', 'actualTrays', 'outletGasSoluteMoleFraction',
+      'richSolventSoluteMoleFraction', 'gasDensity', 'flowParameter', 'capacityFactor', 'floodingVelocity', 'downcomerAreaFraction',
+      'holeAreaFraction', 'traySpacing', 'diameter', 'selectedDiameter', 'pressureDropPerTray', 'columnPressureDrop', 'columnHeight',
+    ]) expect(typeof r.body.summary[k], k).toBe('number')
+    expect(r.body.checks.length).toBeGreaterThanOrEqual(5)
+    expect(r.body.cautions.join(' ')).toMatch(/licensed engineer/i)
+    expect(r.body.totalAnnualCost).toBeUndefined()
+  })
+
+  it('prices the design with a preset or the site basis in force', async () => {
+    const { cobalt } = await siteIds()
+    const a = await api().post('/api/v1/designs/evaluate').set(await auth()).send({ case: ethanolCase, costBasis: { preset: 'halvard-cobalt-ridge' } })
+    expect(a.status).toBe(200)
+    expect(a.body.totalAnnualCost).toBeGreaterThan(0)
+    const b = await api().post('/api/v1/designs/evaluate').set(await auth()).send({ case: ethanolCase, siteId: cobalt })
+    expect(b.body.totalAnnualCost).toBeGreaterThan(0)
+  })
+
+  it('a batch answers in order', async () => {
+    const two = { ...ethanolCase, recovery: 0.95 }
+    const r = await api().post('/api/v1/designs/evaluate').set(await auth()).send({ cases: [ethanolCase, two] })
+    expect(r.status).toBe(200)
+    expect(r.body).toHaveLength(2)
+    expect(r.body[0].summary.recovery).toBeCloseTo(0.985, 6)
+    expect(r.body[1].summary.recovery).toBeCloseTo(0.95, 6)
+  })
+
+  it('bad input: 400 with the field path', async () => {
+    const neg = structuredClone(ethanolCase) as { gas: Record<string, unknown> }
+    neg.gas.flow = -5
+    const r = await api().post('/api/v1/designs/evaluate').set(await auth()).send(neg)
+    expect(r.status).toBe(400)
+    expect(r.body.error.details.map((d: { path: string }) => d.path)).toContain('body.gas.flow')
+
+    const unit = structuredClone(ethanolCase) as { gas: Record<string, unknown> }
+    unit.gas.pressure = { value: 1, unit: 'furlong' }
+    const u = await api().post('/api/v1/designs/evaluate').set(await auth()).send(unit)
+    expect(u.status).toBe(400)
+    expect(u.body.error.details[0].path).toMatch(/^body\.gas\.pressure/)
+
+    const missing = structuredClone(ethanolCase) as Record<string, unknown>
+    delete missing.recovery
+    expect((await api().post('/api/v1/designs/evaluate').set(await auth()).send(missing)).status).toBe(400)
+
+    const batch = await api().post('/api/v1/designs/evaluate').set(await auth()).send({ cases: [ethanolCase, neg] })
+    expect(batch.status).toBe(400)
+    expect(batch.body.error.details[0].path).toBe('body.cases.1.gas.flow')
+  })
+
+  it('infeasible input: 400/422 with a reason a person understands', async () => {
+    const low = { ...ethanolCase, solventFactor: 0.9 }
+    const r = await api().post('/api/v1/designs/evaluate').set(await auth()).send(low)
+    expect([400, 422]).toContain(r.status)
+    expect(r.body.error.details[0].path).toBe('body.solventFactor')
+    const full = { ...ethanolCase, recovery: 1 }
+    const f = await api().post('/api/v1/designs/evaluate').set(await auth()).send(full)
+    expect([400, 422]).toContain(f.status)
+    expect(f.body.error.details[0].path).toBe('body.recovery')
+  })
+
+  it('a non-member cannot borrow another site\'s cost basis', async () => {
+    const { cobalt } = await siteIds()
+    const r = await api().post('/api/v1/designs/evaluate').set('Authorization', `Bearer ${await tokenFor('bayEngineer')}`).send({ case: ethanolCase, siteId: cobalt })
+    expect(r.status).toBe(403)
+  })
+})
+
+describe('POST /designs/optimize', () => {
+  it('returns the optimum, curves, sensitivity and the evaluation count', async () => {
+    const r = await api().post('/api/v1/designs/optimize').set(await auth()).send({ case: ethanolCase, costBasis: { preset: 'halvard-cobalt-ridge' } })
+    expect(r.status).toBe(200)
+    const o = r.body.optimum
+    for (const k of ['recovery', 'solventFactor', 'traySpacing', 'floodFraction', 'actualTrays', 'selectedDiameter', 'totalAnnualCost']) expect(typeof o[k], k).toBe('number')
+    expect(r.body.evaluations).toBeGreaterThan(10)
+    expect(r.body.curves.recovery.length).toBeGreaterThan(3)
+    expect(r.body.curves.solventFactor.length).toBeGreaterThan(3)
+    expect(r.body.sensitivity.length).toBeGreaterThan(3)
+  })
+
+  it('bad search settings: 400 with the path', async () => {
+    const r = await api().post('/api/v1/designs/optimize').set(await auth()).send({ case: ethanolCase, search: { recovery: { min: 0.99, max: 0.9 } } })
+    expect(r.status).toBe(400)
+    expect(r.body.error.details[0].path).toMatch(/^body\.search\.recovery/)
+  })
+})
+
+describe('GET /components', () => {
+  it('lists the library with hazards', async () => {
+    const r = await api().get('/api/v1/components').set(await auth())
+    expect(r.status).toBe(200)
+    const names = r.body.map((c: { name: string }) => c.name)
+    for (const n of ['water', 'carbon dioxide', 'nitrogen', 'air', 'ethanol', 'methanol', 'acetone', 'ammonia', 'isopropanol']) expect(names).toContain(n)
+  })
+})

@@ -21,11 +21,11 @@ export const useUnitsStore = defineStore('units', () => {
 
   function ensureLoaded(): Promise<UnitsModule> {
     if (lib.value) return Promise.resolve(lib.value)
-    loading ??= import('@shared/units.ts').then((m) => {
+    loading ??= import('@shared/units.ts')
+    return loading.then((m) => {
       lib.value = m
       return m
     })
-    return loading
   }
 
   /** Display unit of a kind in the person's system, as the library spells it. */

@@ -82,12 +82,12 @@ export interface CostBreakdown {
 }
 
 function curveWarn(
-  warnings: EngineWarning[],
+  warnings: EngineWarning[] | null,
   key: string,
   S: number,
   curve: CostCurveData,
 ): void {
-  if (S < curve.sizeMin || S > curve.sizeMax) {
+  if (warnings && (S < curve.sizeMin || S > curve.sizeMax)) {
     warnings.push({
       code: 'costOutsideValidity',
       path: `correlations.${key}`,
@@ -104,7 +104,17 @@ function curveWarn(
  * @returns      capital and operating items, TAC (currency/yr) and cost per kg of solute recovered
  */
 export function costDesign(s: DesignSummary, basis: CostBasisData): CostBreakdown {
-  const warnings: EngineWarning[] = []
+  return computeCost(s, basis, [])
+}
+
+/** The total annualised cost only, without warnings or item lists (the optimiser's fast path). */
+export function totalAnnualCost(s: DesignSummary, basis: CostBasisData): number {
+  return computeCost(s, basis, null)
+}
+
+function computeCost(s: DesignSummary, basis: CostBasisData, warnings: EngineWarning[]): CostBreakdown
+function computeCost(s: DesignSummary, basis: CostBasisData, warnings: null): number
+function computeCost(s: DesignSummary, basis: CostBasisData, warnings: EngineWarning[] | null): CostBreakdown | number {
   const g = basis.general
   const I = g.targetIndex
   const cap = basis.capital
@@ -127,7 +137,7 @@ export function costDesign(s: DesignSummary, basis: CostBasisData): CostBreakdow
     const tMin = minimumThickness(D, mat.minimumThickness)
     thickness = shellThicknessUG27(designPressure, D, mat.allowableStress, mat.jointEfficiency, mat.corrosionAllowance, tMin)
     mass = shellMassSeider(D, H, thickness, mat.shellDensity, cor.shell.headsAllowance)
-    if (designPressure > 0.385 * mat.allowableStress * mat.jointEfficiency) {
+    if (warnings && designPressure > 0.385 * mat.allowableStress * mat.jointEfficiency) {
       warnings.push({ code: 'thickWall', path: 'materials.allowableStress', message: 'Design pressure exceeds the thin-wall limit 0.385·S·E; the shell thickness formula does not apply.' })
     }
   }
@@ -139,7 +149,7 @@ export function costDesign(s: DesignSummary, basis: CostBasisData): CostBreakdow
   // --- platforms and ladders
   const pl = cor.platforms
   const plP = (platformsCost(D, H, pl.multiplier, pl.diameterExponent, pl.heightExponent, pl.lengthFactor) * I) / pl.baseIndex
-  if (pl.multiplier > 0) {
+  if (warnings && pl.multiplier > 0) {
     const dft = D * pl.lengthFactor
     const hft = H * pl.lengthFactor
     if (dft < pl.diameterMin || dft > pl.diameterMax || hft < pl.heightMin || hft > pl.heightMax) {
@@ -232,6 +242,7 @@ export function costDesign(s: DesignSummary, basis: CostBasisData): CostBreakdow
   const annualisedCapital = installedCapital * crf
   const totalAnnualCost = annualisedCapital + operatingCost
   const recoveredKg = s.soluteAbsorbed * hours
+  if (!warnings) return totalAnnualCost
 
   const annual: Record<CostItemKey, number> = {
     shell: inst.shell * k,

@@ -13,7 +13,7 @@ import type { CaseInput } from '../../shared/schemas/case.ts'
 import { toSI, UnitError, type QuantityInput, type QuantityKind } from '../../shared/units.ts'
 import type { EngineWarning } from './contract.ts'
 import { InvalidInputError } from './errors.ts'
-import { MOLAR_MASS_WATER, densityWater, surfaceTensionWater, viscosityWater } from './properties/water.ts'
+import { densityWater, surfaceTensionWater, viscosityWater } from './properties/water.ts'
 import { MMHG } from './properties/constants.ts'
 import { validateTable } from './equilibrium/models.ts'
 import { DEFAULT_SPACING_RULE, type SpacingRuleRow } from './hydraulics/flooding.ts'
@@ -161,6 +161,7 @@ export const CASE_DEFAULTS = {
   },
 }
 
+const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1)
 const HAZARD_CAUTIONS: Record<string, (name: string, role: string) => string> = {
   flammable: (n) =>
     `${n} is flammable: the vent gas and the vapour space can be within flammable limits; classify the area, control ignition sources and ventilate.`,
@@ -230,7 +231,7 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
   const soluteLabel = soluteName ?? 'The solute'
   for (const h of soluteHazards) {
     const f = HAZARD_CAUTIONS[h]
-    if (f) cautions.push(f(soluteLabel, 'solute'))
+    if (f) cautions.push(f(cap(soluteLabel), 'solute'))
   }
   if (!soluteLib) cautions.push('The solute is not from the component library: check its hazards (flammability, toxicity) on its safety data sheet.')
 
@@ -257,7 +258,7 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
   else if (carrierLib?.gasViscosity) gasMu = carrierLib.gasViscosity.value
   for (const h of carrierLib?.hazards?.flags ?? []) {
     const f = HAZARD_CAUTIONS[h]
-    if (f) cautions.push(f(carrierName ?? 'The carrier gas', 'carrier'))
+    if (f) cautions.push(f(cap(carrierName ?? 'The carrier gas'), 'carrier'))
   }
 
   // ---- solvent

@@ -587,7 +587,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     detail: wantDetail
       ? {
           units: 'SI (molar flows in detail: mol/s)',
-          equilibrium: { model: c.equilibrium.model, temperature: T, pressure: P, K0: eqb.K0, Ktop, Kbottom: Kbot, xStarBottom: xStarN, ...(eqb.info ?? {}) },
+          equilibrium: { model: c.equilibrium.model, temperature: T, pressure: P, K0: eqb.K0, Ktop, Kbottom: Kbot, xStarBottom: xStarN, parameters: eqb.info },
           balances: {
             method,
             inletGas: V,
@@ -618,14 +618,17 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
             towerArea: At,
             netArea: An,
             weirLength: Lw,
-            bottom: { ...bot, ...sBot, ...hBot },
-            top: { ...top, ...sTop, ...hTop },
+            bottom: { streams: bot, sizing: sBot, tray: hBot },
+            top: { streams: top, sizing: sTop, tray: hTop },
           },
           vessel: { designPressure: Pd, thicknessCalculated: tCalc, thicknessMinimum: tMin, thickness: tShell, mass: mShell, height },
         }
       : {},
   }
-  guardFinite(result)
+  const detailChecksum = wantDetail
+    ? sumStreams(bot) + sumStreams(top) + sumSizing(sBot) + sumSizing(sTop) + sumTray(hBot) + sumTray(hTop) + Atop + Abot + Kbot + Ktop + tCalc + pinch.Xpinch + infoSum(eqb.info)
+    : 0
+  guardFinite(result, detailChecksum)
   return result
 }
 
@@ -672,7 +675,7 @@ function roundUp(D: number, step: number): number {
 }
 
 /** No NaN or Infinity leaves the engine. */
-function guardFinite(r: DesignResult): void {
+function guardFinite(r: DesignResult, detailChecksum: number): void {
   const s = r.summary as unknown as Record<string, unknown>
   for (const k in s) {
     const v = s[k]
@@ -684,8 +687,29 @@ function guardFinite(r: DesignResult): void {
   }
   const st = r.profile.stages
   for (let i = 0; i < st.length; i++) if (!Number.isFinite(st[i]!.x) || !Number.isFinite(st[i]!.y)) throw nonFinite('profile.stages')
-  const d = r.detail as Record<string, unknown>
-  for (const k in d) scrub(d[k])
+  if (!Number.isFinite(detailChecksum)) {
+    // slow path, only when something in the detail is not finite: replace it by null
+    const d = r.detail as Record<string, unknown>
+    for (const k in d) scrub(d[k])
+  }
+}
+
+function infoSum(info: Record<string, number | string> | null): number {
+  let s = 0
+  if (info) for (const k in info) if (typeof info[k] === 'number') s += info[k] as number
+  return s
+}
+
+function sumStreams(s: EndStreams): number {
+  return s.gasMol + s.gasMass + s.rhoV + s.Q + s.liqMass + s.qL
+}
+function sumSizing(s: EndSizing): number {
+  return s.FLV + s.CF + s.C + s.vF + s.AdAt + s.D
+}
+function sumTray(h: TrayHydraulics): number {
+  return (
+    h.vo + h.va + h.Ks + h.phiE + h.hL + h.hd + h.hSigma + h.ht + h.dP + h.Fr + h.entrainment + h.psi + h.how + h.h2 + h.backup + h.backupLimit + h.residence + h.fractionFlood
+  )
 }
 
 function scrub(o: unknown): void {

@@ -12,7 +12,9 @@ import { QUANTITY_KINDS, isUnitOf, type QuantityKind } from '../units.ts'
 
 /** A quantity of a given kind; the unit (when given) must be a unit of that kind. */
 export function quantity(kind: QuantityKind) {
-  return z.union([
+  const info = QUANTITY_KINDS[kind]
+  return z.union(
+    [
     z.number(),
     z
       .object({ value: z.number(), unit: z.string().min(1) })
@@ -21,7 +23,14 @@ export function quantity(kind: QuantityKind) {
         message: `unknown unit or not a unit of ${QUANTITY_KINDS[kind].label.toLowerCase()} (e.g. ${QUANTITY_KINDS[kind].caseUnit})`,
         path: ['unit'],
       }),
-  ])
+    ],
+    {
+      error: (iss) =>
+        iss.input === undefined
+          ? 'required'
+          : `expected a number (in ${info.caseUnit}) or { "value": number, "unit": "${info.caseUnit}" }`,
+    },
+  )
 }
 
 const fraction = z.number()
@@ -38,6 +47,11 @@ export const gasSchema = z
   })
   .strict()
 
+const nameOrObject = (what: string) => ({
+  error: (iss: { input: unknown }) =>
+    iss.input === undefined ? 'required' : `expected a library component name or an object with the ${what} properties`,
+})
+
 export const soluteSchema = z.union([
   z.string().min(1),
   z
@@ -46,7 +60,7 @@ export const soluteSchema = z.union([
       molarMass: quantity('molarMass').optional(),
     })
     .strict(),
-])
+], nameOrObject('solute'))
 
 export const solventSchema = z.union([
   z.string().min(1),
@@ -61,7 +75,7 @@ export const solventSchema = z.union([
       surfaceTension: quantity('surfaceTension').optional(),
     })
     .strict(),
-])
+], nameOrObject('solvent'))
 
 export const antoineSchema = z
   .object({

@@ -20,9 +20,10 @@ export function checkRange(
   path?: string,
 ): void {
   if (warnings && (value < r.min || value > r.max)) {
+    const u = r.unit === '-' ? '' : ' ' + r.unit
     warnings.push({
       code: 'outsideValidity',
-      message: `${what}: ${r.arg} = ${fmt(value)} ${r.unit} is outside the validity range ${fmt(r.min)}-${fmt(r.max)} ${r.unit}; result extrapolated`,
+      message: `${what}: ${r.arg} = ${fmt(value)}${u} is outside the validity range ${fmt(r.min)} to ${fmt(r.max)}${u}; result extrapolated`,
       path,
     })
   }

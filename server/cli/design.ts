@@ -1,0 +1,76 @@
+/**
+ * Command line: `npm run --silent design -- FILE.json`
+ *
+ * FILE holds one case, or { "cases": [...] } for a batch (output: an array in order).
+ * Prints the design JSON to stdout. Exit codes: 0 ok; 2 bad input (message with the
+ * field path on stderr); 3 infeasible design (structured issues on stderr); 1 other.
+ *
+ * The work is in runDesignFile / designOutput so other commands (e.g. with a cost basis)
+ * can extend it.
+ */
+import { readFileSync } from 'node:fs'
+import { fileURLToPath } from 'node:url'
+import { evaluateBatch, evaluateCase, InvalidInputError, InfeasibleDesignError, ConvergenceError, ENGINE_VERSION } from '../engine/index.ts'
+import type { DesignResult } from '../engine/contract.ts'
+
+export type DesignOutput = DesignResult | ReturnType<typeof evaluateBatch>
+
+/** True when the parsed JSON is a batch ({ cases: [...] } or an array). */
+export function isBatch(raw: unknown): boolean {
+  return Array.isArray(raw) || (typeof raw === 'object' && raw !== null && 'cases' in raw)
+}
+
+/** Design output for parsed JSON (one case -> result; batch -> array of results). */
+export function designOutput(raw: unknown): DesignOutput {
+  return isBatch(raw) ? evaluateBatch(raw) : evaluateCase(raw)
+}
+
+/** Read and parse a case file; a JSON error becomes an InvalidInputError. */
+export function readCaseFile(file: string): unknown {
+  let text: string
+  try {
+    text = readFileSync(file, 'utf8')
+  } catch (e) {
+    throw new InvalidInputError('', `cannot read ${file}: ${(e as Error).message}`)
+  }
+  try {
+    return JSON.parse(text) as unknown
+  } catch (e) {
+    throw new InvalidInputError('', `${file} is not valid JSON: ${(e as Error).message}`)
+  }
+}
+
+/** Run the command; returns the exit code. */
+export function main(argv: string[], out: (s: string) => void = (s) => process.stdout.write(s), err: (s: string) => void = (s) => process.stderr.write(s)): number {
+  const args = argv.filter((a) => a !== '--')
+  if (args.length !== 1 || args[0] === '-h' || args[0] === '--help') {
+    err(`usage: npm run --silent design -- FILE.json   (Scrubwright design engine ${ENGINE_VERSION})\n`)
+    return args.length === 1 ? 0 : 2
+  }
+  try {
+    const result = designOutput(readCaseFile(args[0]!))
+    out(JSON.stringify(result, null, 2) + '\n')
+    return 0
+  } catch (e) {
+    if (e instanceof InvalidInputError) {
+      err(`invalid input: ${e.message}\n`)
+      for (const i of e.issues.slice(1, 10)) err(`  ${i.path}: ${i.message}\n`)
+      return 2
+    }
+    if (e instanceof InfeasibleDesignError) {
+      err(`infeasible design:\n`)
+      for (const i of e.issues) err(`  ${i.path} [${i.code}]: ${i.message}\n`)
+      return 3
+    }
+    if (e instanceof ConvergenceError) {
+      err(`no convergence: ${e.message}\n`)
+      return 3
+    }
+    err(`error: ${(e as Error).stack ?? String(e)}\n`)
+    return 1
+  }
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  process.exitCode = main(process.argv.slice(2))
+}

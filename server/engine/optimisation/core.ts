@@ -120,6 +120,8 @@ export class Evaluator {
     return { recovery: toR(x.u), solventFactor: x.s, floodFraction: x.f, traySpacing: this.spacings[x.t] ?? 0.6 }
   }
   readonly raw = new Map<string, DesignResult | string>()
+  /** Cell edges already solved: (solvent factor, flood, spacing, trays) -> u or null. */
+  readonly edges = new Map<string, number | null>()
   /** The design for these variables (cached) whatever its checks say, or why the engine refused it. */
   rawAt(x: X): DesignResult | string {
     const key = `${x.u}|${x.s}|${x.f}|${x.t}`
@@ -332,6 +334,15 @@ function polishEdges(ev: Evaluator, basis: CostBasisData, box: Box, start: X, ro
  * inside the cell and checked. Null when the tray count cannot be met or the point is infeasible.
  */
 function edgeU(ev: Evaluator, x: X, trays: number, box: Box): number | null {
+  const key = `${x.s}|${x.f}|${x.t}|${trays}`
+  const hit = ev.edges.get(key)
+  if (hit !== undefined) return hit
+  const u = edgeUSolve(ev, x, trays, box)
+  ev.edges.set(key, u)
+  return u
+}
+
+function edgeUSolve(ev: Evaluator, x: X, trays: number, box: Box): number | null {
   const g = (u: number): number => {
     const d = ev.rawAt({ ...x, u })
     if (typeof d === 'string') return Number.NaN
@@ -434,7 +445,7 @@ function ridgeSearch(ev: Evaluator, basis: CostBasisData, box: Box, at: X, trays
   let fc = h(c)
   let fd = h(d)
   let out = first
-  for (let i = 0; i < 18 && hi - lo > 1e-4 * (b0 - a0); i++) {
+  for (let i = 0; i < 16 && hi - lo > 5e-4 * (b0 - a0); i++) {
     if (fc.tac <= fd.tac) {
       hi = d
       d = c
@@ -524,7 +535,16 @@ export function searchOptimum(ev: Evaluator, basis: CostBasisData, opts: { grid?
     if (!best || r.tac < best.tac) best = r
   }
   if (!best) throw new NoFeasibleDesignError('No feasible start.', [])
-  // ridge search on the tray counts around the best point: recovery raised to what the trays give
+  const out = refine(ev, basis, box, best)
+  return { x: out.x, tac: out.tac, box }
+}
+
+/**
+ * From a good point: ridge searches on its tray count and the neighbouring counts (recovery raised
+ * to what the trays give), then a fine pattern search and the cell-edge polish.
+ */
+function refine(ev: Evaluator, basis: CostBasisData, box: Box, start: { x: X; tac: number }): { x: X; tac: number } {
+  let best = start
   const d0 = ev.designAt(best.x)
   if (typeof d0 !== 'string') {
     const n0 = d0.summary.actualTrays
@@ -535,8 +555,7 @@ export function searchOptimum(ev: Evaluator, basis: CostBasisData, opts: { grid?
     }
   }
   const fin = patternSearch(ev, basis, box, best.x, 1 / 64, 1 / 1024)
-  const pol = polishEdges(ev, basis, box, fin.x, 2)
-  return { x: pol.x, tac: pol.tac, box }
+  return polishEdges(ev, basis, box, fin.x, 2)
 }
 
 /** TAC vs one variable, the others held at the optimum. */
@@ -611,8 +630,7 @@ export function sensitivity(ev: Evaluator, basis: CostBasisData, box: Box, at: X
       if (it.max !== undefined) v = Math.min(v, it.max)
       const b = structuredClone(basis)
       it.set(b, v)
-      const r = patternSearch(ev, b, box, at, 1 / 8, 1 / 256)
-      const p = polishEdges(ev, b, box, r.x, 1)
+      const p = refine(ev, b, box, { x: at, tac: ev.tac(at, b) })
       return { value: v, tac: p.tac, recovery: toR(p.x.u), solventFactor: p.x.s }
     }
     out.push({ item: it.item, label: it.label, unit: it.unit, baseValue: base, low: side(-1), high: side(1) })

@@ -1,0 +1,137 @@
+/**
+ * Command line: `npm run --silent optimize -- FILE.json`
+ *
+ * FILE: { "case": {...}, "costBasis": {...} | { "preset": "name" } (omitted: the demo basis),
+ *         "search": {...} (optional; every field has a default) }
+ * Prints { optimum, evaluations, curves, sensitivity, ... } as JSON on stdout.
+ * Exit codes: 0 ok; 2 bad input (field path on stderr); 3 no feasible design; 1 other.
+ * Add --no-sensitivity to skip the tornado (faster).
+ */
+import { fileURLToPath } from 'node:url'
+import { caseToSI, ConvergenceError, InfeasibleDesignError, InvalidInputError } from '../engine/index.ts'
+import { DEFAULT_PRESET, hasPreset, listPresets, loadPreset } from '../engine/costing/presets.ts'
+import { optimise } from '../engine/optimisation/optimise.ts'
+import { NoFeasibleDesignError, type OptimiseResult } from '../engine/optimisation/core.ts'
+import { costBasisSchema, type CostBasisData } from '../../shared/schemas/costBasis.ts'
+import { searchSpecSchema, type SearchSpec } from '../../shared/schemas/search.ts'
+import { readCaseFile } from './design.ts'
+
+function isObject(v: unknown): v is Record<string, unknown> {
+  return typeof v === 'object' && v !== null && !Array.isArray(v)
+}
+
+/** The cost basis of an optimize file: a full object, { preset }, or omitted (demo basis). */
+export function costBasisFrom(raw: unknown): CostBasisData {
+  if (raw === undefined) return loadPreset(DEFAULT_PRESET)
+  if (isObject(raw) && typeof raw.preset === 'string' && Object.keys(raw).length === 1) {
+    if (!hasPreset(raw.preset)) {
+      throw new InvalidInputError('costBasis.preset', `unknown preset '${raw.preset}'; known: ${listPresets().map((p) => p.key).join(', ')}`)
+    }
+    return loadPreset(raw.preset)
+  }
+  const r = costBasisSchema.safeParse(raw)
+  if (!r.success) {
+    const issues = r.error.issues.map((i) => ({ path: ['costBasis', ...i.path.map(String)].join('.'), code: 'invalidInput', message: i.message }))
+    const first = issues[0] ?? { path: 'costBasis', message: 'invalid' }
+    throw new InvalidInputError(first.path, first.message, issues)
+  }
+  return r.data
+}
+
+/** The search spec of an optimize file (defaults for what is omitted). */
+export function searchFrom(raw: unknown): SearchSpec {
+  const r = searchSpecSchema.safeParse(raw ?? {})
+  if (!r.success) {
+    const issues = r.error.issues.map((i) => ({ path: ['search', ...i.path.map(String)].join('.'), code: 'invalidInput', message: i.message }))
+    const first = issues[0] ?? { path: 'search', message: 'invalid' }
+    throw new InvalidInputError(first.path, first.message, issues)
+  }
+  return r.data
+}
+
+/** The JSON printed by the command (the full design of the optimum is left out; see `design`). */
+export function optimizeOutput(res: OptimiseResult, basis: CostBasisData) {
+  const o = res.optimum
+  return {
+    optimum: {
+      recovery: o.recovery,
+      solventFactor: o.solventFactor,
+      traySpacing: o.traySpacing,
+      floodFraction: o.floodFraction,
+      actualTrays: o.actualTrays,
+      selectedDiameter: o.selectedDiameter,
+      columnHeight: o.design.summary.columnHeight,
+      totalAnnualCost: o.totalAnnualCost,
+      breakdown: o.breakdown,
+      checks: o.design.checks,
+    },
+    evaluations: res.evaluations,
+    costBasis: { name: basis.name, currency: basis.general.currency, indexName: basis.general.indexName, targetIndex: basis.general.targetIndex, targetYear: basis.general.targetYear },
+    bounds: res.bounds,
+    curves: res.curves,
+    sensitivity: res.sensitivity,
+    stats: res.stats,
+    cautions: res.cautions,
+  }
+}
+
+/** Parse an optimize file and run the optimiser. */
+export function runOptimizeFile(raw: unknown, opts: { sensitivity?: boolean } = {}) {
+  if (!isObject(raw)) throw new InvalidInputError('', 'the file must hold a JSON object { "case", "costBasis", "search" }')
+  if (!isObject(raw.case)) throw new InvalidInputError('case', 'required: the case to optimise (same fields as a design case)')
+  // recovery and solvent factor are the optimiser's variables; a case may leave them out
+  const caseRaw = { recovery: 0.95, solventFactor: 1.5, ...raw.case }
+  const c = caseToSI(caseRaw, undefined, 'case.')
+  const basis = costBasisFrom(raw.costBasis)
+  const search = searchFrom(raw.search)
+  if (opts.sensitivity === false) search.sensitivity = false
+  for (const k of Object.keys(raw)) {
+    if (!['case', 'costBasis', 'search', 'name', 'description'].includes(k)) throw new InvalidInputError(k, 'unknown top-level field')
+  }
+  return optimizeOutput(optimise(c, basis, search), basis)
+}
+
+/** Run the command; returns the exit code. */
+export function main(
+  argv: string[],
+  out: (s: string) => void = (s) => process.stdout.write(s),
+  err: (s: string) => void = (s) => process.stderr.write(s),
+): number {
+  const flags = argv.filter((a) => a.startsWith('--') && a !== '--')
+  const args = argv.filter((a) => !a.startsWith('--'))
+  if (args.length !== 1 || args[0] === '-h') {
+    err('usage: npm run --silent optimize -- FILE.json [--no-sensitivity]\n')
+    return 2
+  }
+  try {
+    const result = runOptimizeFile(readCaseFile(args[0]!), { sensitivity: !flags.includes('--no-sensitivity') })
+    out(JSON.stringify(result, null, 2) + '\n')
+    return 0
+  } catch (e) {
+    if (e instanceof InvalidInputError) {
+      err(`invalid input: ${e.message}\n`)
+      for (const i of e.issues.slice(1, 10)) err(`  ${i.path}: ${i.message}\n`)
+      return 2
+    }
+    if (e instanceof InfeasibleDesignError) {
+      err('infeasible:\n')
+      for (const i of e.issues) err(`  ${i.path} [${i.code}]: ${i.message}\n`)
+      return 3
+    }
+    if (e instanceof NoFeasibleDesignError) {
+      err(`no feasible design: ${e.message}\n`)
+      for (const r of e.reasons.slice(0, 10)) err(`  ${r}\n`)
+      return 3
+    }
+    if (e instanceof ConvergenceError) {
+      err(`no convergence: ${e.message}\n`)
+      return 3
+    }
+    err(`error: ${(e as Error).stack ?? String(e)}\n`)
+    return 1
+  }
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  process.exitCode = main(process.argv.slice(2))
+}

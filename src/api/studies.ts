@@ -1,5 +1,5 @@
 import { http, type Query } from './http.ts'
-import type { CaseInput, OptionView, Paged, RunView, StudyRow, StudyView } from './types.ts'
+import type { CaseInput, OptionRow, Paged, RunRow, RunView, StudyRow, StudyView } from './types.ts'
 
 export interface StudyListQuery extends Query {
   page: number
@@ -24,12 +24,12 @@ export const studiesApi = {
   archive: (siteId: number, studyId: number): Promise<unknown> => http.post(`${base(siteId)}/${studyId}/archive`, {}),
   run: (siteId: number, studyId: number, kind: 'design' | 'optimize'): Promise<RunView> =>
     http.post(`${base(siteId)}/${studyId}/runs`, { kind }),
-  runs: (siteId: number, studyId: number): Promise<RunView[]> => http.get(`${base(siteId)}/${studyId}/runs`),
+  runs: (siteId: number, studyId: number): Promise<RunRow[]> => http.get(`${base(siteId)}/${studyId}/runs`),
   getRun: (siteId: number, studyId: number, runId: number): Promise<RunView> =>
     http.get(`${base(siteId)}/${studyId}/runs/${runId}`),
-  pin: (siteId: number, studyId: number, body: { runId: number; name: string; notes: string }): Promise<OptionView> =>
+  pin: (siteId: number, studyId: number, body: { runId: number; name: string; notes: string }): Promise<OptionRow> =>
     http.post(`${base(siteId)}/${studyId}/options`, body),
-  options: (siteId: number, studyId: number): Promise<OptionView[]> => http.get(`${base(siteId)}/${studyId}/options`),
+  options: (siteId: number, studyId: number): Promise<OptionRow[]> => http.get(`${base(siteId)}/${studyId}/options`),
   removeOption: (siteId: number, studyId: number, optionId: number): Promise<unknown> =>
     http.del(`${base(siteId)}/${studyId}/options/${optionId}`),
 }

@@ -3,62 +3,16 @@
  * design and optimisation results, studies, runs, options and cost-basis versions.
  * They follow the server's documented contract; unknown extra fields are kept.
  */
-import type { StudyStatus } from '@shared/schemas/common.ts'
 import type { CostBasisInput } from '@shared/schemas/costBasis.ts'
+
+import type { CaseInput } from '@shared/schemas/case.ts'
+
+export type { CaseInput }
 
 /** A bare number in the case unit, or a value with its unit. */
 export type Quantity = number | { value: number; unit: string }
 
-export interface CaseGas {
-  flow: Quantity
-  temperature: Quantity
-  pressure: Quantity
-  soluteMoleFraction: number
-  carrier?: string
-  carrierMolarMass?: Quantity
-}
-
-export type CaseSolute = string | { name?: string; molarMass: Quantity; [k: string]: unknown }
-export type CaseSolvent = string | { name?: string; molarMass?: Quantity; [k: string]: unknown }
-
-export interface TablePoint {
-  x: number
-  y: number
-}
-
-export type CaseEquilibrium =
-  | { model: 'constantK'; K: number }
-  | { model: 'henry'; [k: string]: unknown }
-  | { model: 'modifiedRaoult'; [k: string]: unknown }
-  | { model: 'table'; points: TablePoint[]; [k: string]: unknown }
-
-export type EquilibriumModel = CaseEquilibrium['model']
-
-export interface CaseTray {
-  holeDiameter?: Quantity
-  holePitch?: Quantity
-  thickness?: Quantity
-  spacing?: Quantity | 'auto'
-  floodFraction?: number
-  foamingFactor?: number
-  weirHeight?: Quantity
-  [k: string]: unknown
-}
-
-export type CaseEfficiency = { model: 'oconnell' } | { model: 'fixed'; value: number }
-
-export interface CaseInput {
-  name?: string
-  gas: CaseGas
-  solute: CaseSolute
-  solvent: CaseSolvent
-  equilibrium: CaseEquilibrium
-  recovery: number
-  solventFactor: number
-  tray: CaseTray
-  efficiency: CaseEfficiency
-  [k: string]: unknown
-}
+export type EquilibriumModel = CaseInput['equilibrium']['model']
 
 export interface CheckResult {
   key: string
@@ -173,16 +127,21 @@ export interface DesignResult {
 
 export interface CurvePoint {
   x: number
-  tac: number
-  breakdown?: Record<string, number> | CostBreakdown
+  tac: number | null
+  breakdown?: Record<string, number> | null
   feasible: boolean
+  actualTrays?: number | null
+  selectedDiameter?: number | null
+  reason?: string
 }
 
 export interface SensitivityRow {
   item: string
   label: string
-  low: { tac: number; recovery: number; [k: string]: unknown }
-  high: { tac: number; recovery: number; [k: string]: unknown }
+  unit?: string
+  baseValue?: number
+  low: { value?: number; tac: number; recovery: number; solventFactor?: number }
+  high: { value?: number; tac: number; recovery: number; solventFactor?: number }
 }
 
 export interface OptimizeResult {
@@ -200,20 +159,12 @@ export interface OptimizeResult {
   evaluations: number
   curves: { recovery: CurvePoint[]; solventFactor: CurvePoint[] }
   sensitivity: SensitivityRow[]
+  cautions?: string[]
+  bounds?: { recovery: [number, number]; solventFactor: [number, number]; floodFraction: [number, number]; traySpacings: number[] }
 }
 
-export interface StudyRow {
-  id: number
-  name: string
-  description?: string
-  status: StudyStatus
-  ownerName?: string | null
-  targetRecovery?: number | null
-  optimumTac?: number | null
-  lastRunAt?: string | null
-  updatedAt?: string
-  lockVersion: number
-}
+export type { StudyRow, RunRow, OptionRow } from '@shared/schemas/studies.ts'
+import type { StudyRow, RunRow, OptionRow } from '@shared/schemas/studies.ts'
 
 export interface Paged<T> {
   items: T[]
@@ -222,34 +173,30 @@ export interface Paged<T> {
   pageSize: number
 }
 
-export interface RunView {
-  id: number
-  kind: 'design' | 'optimize'
-  createdAt: string
-  costBasisVersion?: number | string | null
-  engineVersion?: string | null
+export interface RunView extends RunRow {
+  inputs?: CaseInput
+  search?: Record<string, unknown> | null
   result: DesignResult | OptimizeResult | null
-  [k: string]: unknown
 }
 
-export interface OptionView {
-  id: number
-  name: string
-  notes?: string | null
-  runId: number
-  createdAt?: string
-  run?: RunView | null
-  result?: DesignResult | OptimizeResult | null
-  inputs?: CaseInput | null
-  [k: string]: unknown
+export interface StudyPermissions {
+  edit: boolean
+  run: boolean
+  pin: boolean
+  submit: boolean
+  review: boolean
+  comment: boolean
+  archive: boolean
+  logOperation: boolean
 }
 
 export interface StudyView extends StudyRow {
-  siteId?: number
   inputs: CaseInput
   search?: Record<string, unknown> | null
-  options?: OptionView[]
-  [k: string]: unknown
+  runs: RunRow[]
+  options: OptionRow[]
+  lastSeenAt?: string | null
+  can?: StudyPermissions
 }
 
 export interface CostBasisVersionRow {
@@ -277,12 +224,14 @@ export interface CostPreset {
 }
 
 export interface ComponentEntry {
-  key?: string
-  id?: string
   name: string
-  molarMass?: number
+  aliases?: string[]
   formula?: string
-  [k: string]: unknown
+  molarMass?: number
+  hasHenry?: boolean
+  hasVapourPressure?: boolean
+  hazards?: string[]
+  source?: string
 }
 
 /** True when a run result is an optimisation result. */

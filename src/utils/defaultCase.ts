@@ -3,7 +3,7 @@ import type { CaseInput } from '@/api/types.ts'
 /** A starting case for a new study: fermenter off-gas (CO2 with ethanol) washed with water. */
 export function defaultCase(): CaseInput {
   return {
-    gas: { flow: 180, temperature: 30, pressure: 110, soluteMoleFraction: 0.012, carrierMolarMass: 44.01 },
+    gas: { flow: 180, temperature: 30, pressure: 110, soluteMoleFraction: 0.012, carrier: 'carbon dioxide' },
     solute: 'ethanol',
     solvent: 'water',
     equilibrium: { model: 'constantK', K: 0.43 },

@@ -1,0 +1,197 @@
+import { computed, ref, shallowRef, watch } from 'vue'
+import { studiesApi } from '@/api/studies.ts'
+import { designsApi } from '@/api/designs.ts'
+import { ApiError, fieldErrors } from '@/api/http.ts'
+import { designOf, isOptimizeResult, type CaseInput, type ComponentEntry, type RunView, type StudyView } from '@/api/types.ts'
+import type { AsyncStatus } from './useAsync.ts'
+
+function clone<T>(v: T): T {
+  return JSON.parse(JSON.stringify(v)) as T
+}
+
+/** Field errors from a client-side check of the case with the shared schema (loaded on demand). */
+async function validateCase(c: CaseInput): Promise<Record<string, string[]>> {
+  const { caseSchema } = await import('@shared/schemas/case.ts')
+  const parsed = caseSchema.safeParse(c)
+  const out: Record<string, string[]> = {}
+  if (parsed.success) return out
+  for (const issue of parsed.error.issues) (out[issue.path.join('.')] ??= []).push(issue.message)
+  return out
+}
+
+/**
+ * One study in the workspace: the stored study, an editable copy of its inputs, the latest
+ * design and optimisation runs, saving with optimistic locking and running the engine.
+ */
+export function useStudy(siteId: () => number, studyId: () => number) {
+  const study = shallowRef<StudyView | null>(null)
+  const status = ref<AsyncStatus>('idle')
+  const error = shallowRef<unknown>(null)
+  const draft = ref<CaseInput | null>(null)
+  const name = ref('')
+  const description = ref('')
+  const dirty = ref(false)
+  const saving = ref(false)
+  const running = ref<'design' | 'optimize' | null>(null)
+  const actionError = shallowRef<unknown>(null)
+  const conflict = ref(false)
+  const errors = ref<Record<string, string[]>>({})
+  const designRun = shallowRef<RunView | null>(null)
+  const optimizeRun = shallowRef<RunView | null>(null)
+  const library = ref<ComponentEntry[]>([])
+
+  let loadingDraft = false
+  watch(
+    [draft, name, description],
+    () => {
+      if (!loadingDraft) dirty.value = true
+    },
+    { deep: true },
+  )
+
+  function adopt(s: StudyView, keepDraft = false): void {
+    study.value = s
+    if (!keepDraft) {
+      loadingDraft = true
+      draft.value = clone(s.inputs)
+      name.value = s.name
+      description.value = s.description ?? ''
+      dirty.value = false
+      // let the deep watcher see the new draft before we start tracking edits again
+      void Promise.resolve().then(() => {
+        loadingDraft = false
+        dirty.value = false
+      })
+    }
+  }
+
+  async function loadRuns(s: StudyView): Promise<void> {
+    const lastDesign = s.runs.find((r) => r.kind === 'design')
+    const lastOptimize = s.runs.find((r) => r.kind === 'optimize')
+    const [d, o] = await Promise.all([
+      lastDesign ? studiesApi.getRun(siteId(), s.id, lastDesign.id) : Promise.resolve(null),
+      lastOptimize ? studiesApi.getRun(siteId(), s.id, lastOptimize.id) : Promise.resolve(null),
+    ])
+    designRun.value = d
+    optimizeRun.value = o
+  }
+
+  async function load(): Promise<void> {
+    status.value = 'loading'
+    error.value = null
+    conflict.value = false
+    errors.value = {}
+    try {
+      const s = await studiesApi.get(siteId(), studyId())
+      adopt(s)
+      await loadRuns(s)
+      status.value = 'success'
+    } catch (err) {
+      error.value = err
+      status.value = 'error'
+    }
+    if (library.value.length === 0) {
+      designsApi
+        .components()
+        .then((l) => {
+          library.value = Array.isArray(l) ? l : l.items
+        })
+        .catch(() => undefined)
+    }
+  }
+
+  const can = computed(() => study.value?.can)
+  const canEdit = computed(() => can.value?.edit === true)
+
+  /** Save the inputs; returns false when it could not (errors are shown). */
+  async function save(): Promise<boolean> {
+    const s = study.value
+    if (!s || !draft.value) return false
+    actionError.value = null
+    conflict.value = false
+    errors.value = await validateCase(draft.value)
+    if (!name.value.trim()) errors.value.name = ['Give the study a name.']
+    if (Object.keys(errors.value).length > 0) {
+      actionError.value = new ApiError(400, 'validation', 'Some inputs need attention (marked on the fields).')
+      return false
+    }
+    saving.value = true
+    try {
+      const updated = await studiesApi.update(siteId(), s.id, {
+        name: name.value.trim(),
+        description: description.value,
+        inputs: draft.value,
+        lockVersion: s.lockVersion,
+      })
+      adopt({ ...s, ...updated }, true)
+      dirty.value = false
+      return true
+    } catch (err) {
+      if (err instanceof ApiError && err.status === 409) conflict.value = true
+      errors.value = fieldErrors(err, ['inputs.'])
+      actionError.value = err
+      return false
+    } finally {
+      saving.value = false
+    }
+  }
+
+  async function run(kind: 'design' | 'optimize'): Promise<boolean> {
+    const s = study.value
+    if (!s) return false
+    if (dirty.value && !(await save())) return false
+    running.value = kind
+    actionError.value = null
+    errors.value = {}
+    try {
+      const r = await studiesApi.run(siteId(), s.id, kind)
+      if (kind === 'design') designRun.value = r
+      else optimizeRun.value = r
+      const fresh = await studiesApi.get(siteId(), s.id)
+      adopt(fresh, true)
+      return true
+    } catch (err) {
+      errors.value = fieldErrors(err, ['inputs.'])
+      actionError.value = err
+      return false
+    } finally {
+      running.value = null
+    }
+  }
+
+  async function pin(runId: number, optionName: string, notes: string): Promise<void> {
+    const s = study.value
+    if (!s) return
+    await studiesApi.pin(siteId(), s.id, { runId, name: optionName, notes })
+    adopt(await studiesApi.get(siteId(), s.id), true)
+  }
+
+  async function removeOption(optionId: number): Promise<void> {
+    const s = study.value
+    if (!s) return
+    await studiesApi.removeOption(siteId(), s.id, optionId)
+    adopt(await studiesApi.get(siteId(), s.id), true)
+  }
+
+  /** The newest run of either kind: what Column, Tray checks and Economics show. */
+  const currentRun = computed<RunView | null>(() => {
+    const d = designRun.value
+    const o = optimizeRun.value
+    if (d && o) return d.id > o.id ? d : o
+    return d ?? o
+  })
+  const design = computed(() => designOf(currentRun.value?.result))
+  const optimisation = computed(() => (isOptimizeResult(optimizeRun.value?.result) ? optimizeRun.value.result : null))
+  const cautions = computed(() => {
+    const list = [...(design.value?.cautions ?? []), ...(currentRun.value === optimizeRun.value ? (optimisation.value?.cautions ?? []) : [])]
+    return [...new Set(list)]
+  })
+
+  return {
+    study, status, error, draft, name, description, dirty, saving, running, actionError, conflict, errors, library,
+    designRun, optimizeRun, currentRun, design, optimisation, cautions, can, canEdit,
+    load, save, run, pin, removeOption,
+  }
+}
+
+export type StudyWorkspace = ReturnType<typeof useStudy>

@@ -2,6 +2,21 @@ import { createApp } from './app.ts'
 import { config } from './config.ts'
 import { logger } from './logger.ts'
 import { sequelize } from './db/sequelize.ts'
+import { startFakeSmtp } from './mail/fake-smtp.ts'
+import { startMailLoop, stopMailLoop, kick } from './services/mail.ts'
+
+// Development and tests: a local capture server stands in for the SMTP relay (see the Outbox page).
+let fakeSmtp: { close: () => Promise<void> } | null = null
+if (config.MAIL_MODE === 'fake') {
+  try {
+    fakeSmtp = await startFakeSmtp(config.SMTP_PORT, config.SMTP_HOST)
+    logger.info({ port: config.SMTP_PORT }, 'fake SMTP server capturing mail')
+  } catch (err) {
+    logger.warn({ err }, 'fake SMTP server could not start; mail stays queued and is retried')
+  }
+}
+startMailLoop()
+void kick().catch(() => undefined)
 
 const app = createApp()
 const server = app.listen(config.PORT, config.HOST, (err?: Error) => {
@@ -18,7 +33,9 @@ async function shutdown(signal: string): Promise<void> {
   stopping = true
   logger.info({ signal }, 'shutting down')
   const timer = setTimeout(() => process.exit(1), 10_000)
+  stopMailLoop()
   server.close(async () => {
+    await fakeSmtp?.close().catch(() => undefined)
     await sequelize.close().catch(() => undefined)
     clearTimeout(timer)
     process.exit(0)

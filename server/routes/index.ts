@@ -3,10 +3,14 @@ import type { Config } from '../config.ts'
 import { costBasisRoutes } from './cost-bases.ts'
 import { designRoutes } from './designs.ts'
 import { studyRoutes } from './studies.ts'
+import { uploadRoutes } from './uploads.ts'
+import { reviewRoutes } from './review.ts'
 
 /** Feature routes beyond identity: designs, cost bases, studies, runs, review... */
-export function registerFeatureRoutes(router: Router, _cfg: Config): void {
+export function registerFeatureRoutes(router: Router, cfg: Config): void {
   designRoutes(router)
   costBasisRoutes(router)
   studyRoutes(router)
+  uploadRoutes(router, cfg)
+  reviewRoutes(router, cfg)
 }

@@ -5,8 +5,9 @@ import { DataTypes, type QueryInterface } from 'sequelize'
 // site components and vendor quotes, operating log, solvent allocations and mail.
 
 const id = { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true, allowNull: false }
-const createdAt = { type: DataTypes.DATE, allowNull: false }
-const updatedAt = { type: DataTypes.DATE, allowNull: false }
+// Millisecond timestamps: 'changed since you last looked' compares them.
+const createdAt = { type: DataTypes.DATE(3), allowNull: false }
+const updatedAt = { type: DataTypes.DATE(3), allowNull: false }
 const fk = (table: string, onDelete: 'CASCADE' | 'RESTRICT' = 'CASCADE', allowNull = false) => ({
   type: DataTypes.INTEGER.UNSIGNED,
   allowNull,
@@ -142,7 +143,7 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     id,
     user_id: fk('users'),
     study_id: fk('studies'),
-    seen_at: { type: DataTypes.DATE, allowNull: false },
+    seen_at: { type: DataTypes.DATE(3), allowNull: false },
   }, opts)
   await qi.addIndex('study_views', ['user_id', 'study_id'], { unique: true, name: 'study_views_user_study' })
 

@@ -13,7 +13,7 @@ import { ROLES, STUDY_STATUSES, type Role, type StudyStatus, type UnitSystem } f
 // ../migrations; these definitions must match them. Associations live in ../associations.ts.
 
 const id = { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true } as const
-const ts = { createdAt: DataTypes.DATE, updatedAt: DataTypes.DATE } as const
+const ts = { createdAt: DataTypes.DATE(3), updatedAt: DataTypes.DATE(3) } as const
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>
@@ -206,7 +206,7 @@ Run.init(
     result: jsonColumn('result'),
     totalAnnualCost: { type: DataTypes.DOUBLE, allowNull: true },
     createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
-    createdAt: DataTypes.DATE,
+    createdAt: DataTypes.DATE(3),
   },
   { sequelize, tableName: 'runs', updatedAt: false },
 )
@@ -228,7 +228,7 @@ StudyOption.init(
     name: { type: DataTypes.STRING(160), allowNull: false },
     notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
     createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
-    createdAt: DataTypes.DATE,
+    createdAt: DataTypes.DATE(3),
   },
   { sequelize, tableName: 'study_options', updatedAt: false },
 )
@@ -248,7 +248,7 @@ ReviewEvent.init(
     userId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
     kind: { type: DataTypes.ENUM('comment', 'submit', 'approve', 'return', 'reopen'), allowNull: false },
     body: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-    createdAt: DataTypes.DATE,
+    createdAt: DataTypes.DATE(3),
   },
   { sequelize, tableName: 'review_events', updatedAt: false },
 )
@@ -265,7 +265,7 @@ StudyView.init(
     id,
     userId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
     studyId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-    seenAt: { type: DataTypes.DATE, allowNull: false },
+    seenAt: { type: DataTypes.DATE(3), allowNull: false },
   },
   { sequelize, tableName: 'study_views', timestamps: false },
 )
@@ -323,7 +323,7 @@ VendorQuote.init(
     vendor: { type: DataTypes.STRING(160), allowNull: false, defaultValue: '' },
     uploadRef: { type: DataTypes.STRING(64), allowNull: true },
     createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
-    createdAt: DataTypes.DATE,
+    createdAt: DataTypes.DATE(3),
   },
   { sequelize, tableName: 'vendor_quotes', updatedAt: false },
 )
@@ -378,7 +378,7 @@ SolventAllocation.init(
     inputs: jsonColumn('inputs'),
     result: jsonColumn('result', true),
     createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
-    createdAt: DataTypes.DATE,
+    createdAt: DataTypes.DATE(3),
   },
   { sequelize, tableName: 'solvent_allocations', updatedAt: false },
 )

@@ -45,7 +45,7 @@ export const scrubwrightLight: ThemeDefinition = {
     'chart-operating': '#C77700',
     'chart-equilibrium': '#A8322D',
     'chart-operating-line': '#1D5C6B',
-    'chart-steps': '#56707A',
+    'chart-steps': '#C77700',
     'chart-optimum': '#A8322D',
     'chart-low': '#5B7FA6',
     'chart-high': '#C77700',

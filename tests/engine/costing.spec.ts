@@ -198,6 +198,21 @@ describe('costDesign — items, escalation, installation and annualisation', () 
     near(item('shell')?.installed ?? 0, 57394 * esc * 4.16, 5e-5)
   })
 
+  it('Turton basis: trays by area with F_q; 40 trays of 3 m -> 40 × $4,569.4 at CEPCI 397 (Example 7.13 reproduction [D])', () => {
+    const r = costDesign(summary({ selectedDiameter: 3, columnHeight: 30, actualTrays: 40 }), turton)
+    const trays = r.capital.find((c) => c.key === 'trays')
+    near(trays?.purchased ?? 0, 40 * 4569.4, 5e-5)
+    // shell by volume: V = π/4 · 3² · 30 = 212.06 m³ -> C_p° = $132,466 (2001) [D from Appendix A]
+    near(r.capital.find((c) => c.key === 'shell')?.purchased ?? 0, 132466, 5e-5)
+    // pump by shaft power: log10 C = 3.3892 + 0.0536 log10 W + 0.1538 (log10 W)², W in kW (Appendix A)
+    const s = summary({ selectedDiameter: 3, columnHeight: 30 })
+    const rho = s.solventMassFlow / s.solventVolumetricFlow
+    const head = 30 + (s.operatingPressure - 101325) / (rho * 9.80665) + turton.drives.pumpHeadAllowance
+    const W = (rho * 9.80665 * (s.solventVolumetricFlow / 3600) * head) / turton.drives.pumpEfficiency / 1000
+    const lw = Math.log10(W)
+    near(r.capital.find((c) => c.key === 'pump')?.purchased ?? 0, 10 ** (3.3892 + 0.0536 * lw + 0.1538 * lw * lw), 1e-9)
+  })
+
   it('operating items follow their definitions (flow × hours × price; power = ρgQH/η)', () => {
     const b: CostBasisData = structuredClone(seider)
     b.utilities = { electricityPrice: 0.1, solventCost: 0.5, productValue: 0.6, emissionCharge: 0.3 }

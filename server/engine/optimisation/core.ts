@@ -3,23 +3,34 @@
  * turns DesignVariables into a DesignResult (the design engine, or a test stand-in), prices each
  * design with the cost model and searches for the lowest total annualised cost (TAC).
  *
- * Variables: recovery r (continuous, bounds from the search spec and the emission limit), solvent
- * factor L/Lmin (continuous), fraction of flood (continuous), tray spacing (discrete list). The
- * integer tray count is not a separate variable: the design rounds the trays up, so at a given
- * tray count the TAC falls or rises smoothly with recovery until the count steps. The search
- * therefore treats recovery as continuous and, in a final polish, pushes each continuous variable
- * to the edge of its (trays, diameter) cell in the direction that lowers the TAC; at fixed trays
- * this raises the recovery to what those trays give (to within 1e-6 in -ln(1-r)).
+ * Variables: recovery r (continuous; bounds from the search spec and the emission limit,
+ * r >= 1 - limit / solute in), solvent factor L/Lmin (continuous), fraction of flood (continuous),
+ * tray spacing (discrete list). Recovery is searched as u = -ln(1 - r), in which the stage count
+ * is nearly linear.
+ *
+ * Integer trays: the design rounds N_theoretical / E_o up, so the TAC surface is cut into cells of
+ * equal tray count (and equal rounded diameter). Inside a cell the TAC moves smoothly (lost product
+ * falls as r rises; solvent cost rises with L/Lmin), so the optimum lies on a cell edge. Our
+ * treatment: at a fixed tray count the recovery is raised to what those trays give, i.e. to the
+ * edge of the cell, found as the root of N_theoretical(u)/E_o(u) = trays (regula falsi, a few
+ * design calls, then stepped 1e-9 inside). The tray count itself is not a separate variable; the
+ * search visits neighbouring counts explicitly (ridge search below).
  *
  * Constraints: a design the engine rejects (InfeasibleDesignError, InvalidInputError,
  * ConvergenceError) is an infeasible point; a tray check with status 'fail' is infeasible, 'warn' is
- * accepted unless search.allowWarnings is false; diameter and height must not exceed the limits.
+ * accepted by default (search.allowWarnings = false rejects it too); diameter and height must not
+ * exceed search.maxDiameter and search.maxHeight. Infeasible points have TAC = +infinity.
  *
- * Method: a coarse grid over (u = -ln(1-r), L/Lmin, fraction of flood) for every tray spacing,
- * then pattern search (compass moves with step halving, after Hooke and Jeeves 1961,
- * key hookeJeeves1961) from the best few grid points, moving the spacing to its neighbours as
- * well, then the cell-edge polish. Designs are cached by their variables, so re-pricing under a
- * changed cost basis (sensitivity) needs no new design evaluations where the points repeat.
+ * Method:
+ *   1. coarse grid, 6 (u) x 5 (L/Lmin) x 3 (flood) for every tray spacing;
+ *   2. pattern search (compass moves with expansion, diagonal moves in (u, L/Lmin), neighbour
+ *      moves on the spacing, step halving; after Hooke and Jeeves 1961, key hookeJeeves1961) from
+ *      the best grid point of each of the best tray counts and of each spacing (4 starts);
+ *   3. ridge search on the best point's tray count and its two neighbours: along L/Lmin, recovery
+ *      at the cell edge, minimised by a 5-point scan and golden-section refinement;
+ *   4. a fine pattern search and a bisection polish that pushes each variable to its cell edge.
+ * Verified against a dense brute-force grid (tests/engine/optimisation.spec.ts). Designs are cached
+ * by their variables, so re-pricing under a changed cost basis (sensitivity) mostly reuses them.
  */
 import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
 import type { SearchSpec } from '../../../shared/schemas/search.ts'
@@ -618,7 +629,12 @@ export const sensitivityItems: SensItem[] = [
   } },
 ]
 
-/** Re-optimise locally from the base optimum for each cost-basis item changed by ±fraction. */
+/**
+ * Sensitivity (tornado): each cost-basis item changed by ±fraction (integer items rounded,
+ * operating hours capped at 8760 h/yr, items whose base value is 0 left out), re-optimised
+ * locally from the base optimum (ridge searches on the neighbouring tray counts, fine pattern
+ * search, polish).
+ */
 export function sensitivity(ev: Evaluator, basis: CostBasisData, box: Box, at: X, fraction: number): SensitivityEntry[] {
   const out: SensitivityEntry[] = []
   for (const it of sensitivityItems) {

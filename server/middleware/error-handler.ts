@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
+import multer from 'multer'
 import { AppError, NotFoundError, type ErrorDetail } from '../errors.ts'
 import { logger } from '../logger.ts'
 import type { ErrorBody } from '../../shared/schemas/common.ts'
@@ -25,6 +26,15 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
   } else if (err instanceof ZodError) {
     status = 400
     body = { code: 'validation_failed', message: 'The request is not valid.', details: zodDetails(err), requestId: req.requestId }
+  } else if (err instanceof multer.MulterError) {
+    const tooLarge = err.code === 'LIMIT_FILE_SIZE'
+    status = tooLarge ? 413 : 400
+    body = {
+      code: tooLarge ? 'payload_too_large' : 'bad_upload',
+      message: tooLarge ? 'The file is larger than the upload limit.' : `The upload is not valid: ${err.message}.`,
+      details: [{ path: err.field ?? 'file', message: err.message }],
+      requestId: req.requestId,
+    }
   } else if (isBodyParserError(err)) {
     status = err.status
     body = {

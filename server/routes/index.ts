@@ -5,6 +5,7 @@ import { designRoutes } from './designs.ts'
 import { studyRoutes } from './studies.ts'
 import { uploadRoutes } from './uploads.ts'
 import { reviewRoutes } from './review.ts'
+import { operatingRoutes } from './operating.ts'
 
 /** Feature routes beyond identity: designs, cost bases, studies, runs, review... */
 export function registerFeatureRoutes(router: Router, cfg: Config): void {
@@ -13,4 +14,5 @@ export function registerFeatureRoutes(router: Router, cfg: Config): void {
   studyRoutes(router)
   uploadRoutes(router, cfg)
   reviewRoutes(router, cfg)
+  operatingRoutes(router, cfg)
 }

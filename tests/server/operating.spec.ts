@@ -1,0 +1,75 @@
+import { describe, it, expect } from 'vitest'
+import { readFileSync } from 'node:fs'
+import { api, tokenFor, siteIds } from './helpers.ts'
+import { OperatingEntry } from '../../server/db/models/index.ts'
+
+const demo = JSON.parse(readFileSync('data/demo-studies.json', 'utf8')) as { studies: { inputs: Record<string, unknown> }[] }
+const ethanolCase = demo.studies[0]!.inputs
+
+async function approvedStudy(site: number) {
+  const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+  const rev = { Authorization: `Bearer ${await tokenFor('reviewer')}` }
+  const s = await api().post(`/api/v1/sites/${site}/studies`).set(eng).send({ name: `Tracked ${Date.now()}`, inputs: ethanolCase })
+  const run = await api().post(`/api/v1/sites/${site}/studies/${s.body.id}/runs`).set(eng).send({ kind: 'design' })
+  const opt = await api().post(`/api/v1/sites/${site}/studies/${s.body.id}/options`).set(eng).send({ runId: run.body.id, name: 'Base' })
+  await api().post(`/api/v1/sites/${site}/studies/${s.body.id}/submit`).set(eng).send({ recommendedOptionId: opt.body.id })
+  await api().post(`/api/v1/sites/${site}/studies/${s.body.id}/approve`).set(rev).send({})
+  return { id: s.body.id as number, design: run.body.result.summary as Record<string, number> }
+}
+
+describe('operating log', () => {
+  it('only an approved study takes entries', async () => {
+    const { cobalt } = await siteIds()
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const s = await api().post(`/api/v1/sites/${cobalt}/studies`).set(eng).send({ name: 'Not approved', inputs: ethanolCase })
+    const r = await api().post(`/api/v1/sites/${cobalt}/studies/${s.body.id}/operating-entries`).set(eng).send({ month: '2026-05', gasFlow: 400, solventFlow: 330 })
+    expect(r.status).toBe(409)
+  })
+
+  it('prices months against the approved design; at design throughput and recovery the gap is only the power difference', async () => {
+    const { cobalt } = await siteIds()
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const { id, design } = await approvedStudy(cobalt)
+    const atDesign = { month: '2026-03', gasFlow: design.gasFlow, solventFlow: design.solventFlow, recovery: design.recovery }
+    const r = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries`).set(eng).send(atDesign)
+    expect(r.status).toBe(201)
+    expect(r.body.months).toHaveLength(1)
+    const m = r.body.months[0]
+    expect(m.throughputRatio).toBeCloseTo(1, 12)
+    // Same flows, same recovery, power from the design: actual equals design.
+    expect(Math.abs(m.gap)).toBeLessThan(1e-6 * m.design.total)
+    expect(m.flags).toEqual([])
+
+    const dup = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries`).set(eng).send(atDesign)
+    expect(dup.status).toBe(409)
+
+    const worse = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries`).set(eng)
+      .send({ month: '2026-04', gasFlow: design.gasFlow * 1.3, solventFlow: design.solventFlow, outletMoleFraction: 0.002 })
+    const april = worse.body.months.find((x: { month: string }) => x.month === '2026-04')
+    expect(april.gap).toBeGreaterThan(0)
+    expect(april.flags.map((f: { code: string }) => f.code)).toEqual(expect.arrayContaining(['recoveryBelowTarget']))
+    expect(worse.body.toDate.gap).toBeCloseTo(april.gap + m.gap, 6)
+  })
+
+  it('imports a CSV: all rows or none, with line numbers', async () => {
+    const { cobalt } = await siteIds()
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const { id } = await approvedStudy(cobalt)
+    const bad = 'month,gasFlow,solventFlow,recovery\r\n2026-01,400,330,0.98\r\n2026-02,abc,330,0.98\r\n2026-13,400,330,0.98\r\n'
+    const r = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries/import`).set(eng).attach('file', Buffer.from(bad), 'log.csv')
+    expect(r.status).toBe(400)
+    expect(r.body.error.details.map((d: { path: string }) => d.path)).toEqual(['file:line 3', 'file:line 4'])
+    expect(await OperatingEntry.count({ where: { studyId: id } })).toBe(0)
+
+    const good = '\uFEFFmonth,gasFlow,solventFlow,outletMoleFraction,powerKw,notes\n2026-01,400,330,0.0003,14,"cold month, fine"\n2026-02,410,335,,15,\n\n'
+    const ok = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries/import`).set(eng).attach('file', Buffer.from(good), 'log.csv')
+    expect(ok.status).toBe(201)
+    expect(ok.body.entries.map((e: { month: string }) => e.month)).toEqual(['2026-01', '2026-02'])
+    expect(ok.body.entries[0].notes).toBe('cold month, fine')
+
+    const wrongType = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries/import`).set(eng).attach('file', Buffer.from('x'), 'log.pdf')
+    expect(wrongType.status).toBe(400)
+    const rev = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries/import`).set('Authorization', `Bearer ${await tokenFor('reviewer')}`).attach('file', Buffer.from(good), 'log.csv')
+    expect(rev.status).toBe(403)
+  })
+})

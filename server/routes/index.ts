@@ -4,6 +4,7 @@ import { costBasisRoutes } from './cost-bases.ts'
 import { designRoutes } from './designs.ts'
 import { studyRoutes } from './studies.ts'
 import { uploadRoutes } from './uploads.ts'
+import { reportRoutes } from './reports.ts'
 import { reviewRoutes } from './review.ts'
 import { operatingRoutes } from './operating.ts'
 
@@ -13,6 +14,7 @@ export function registerFeatureRoutes(router: Router, cfg: Config): void {
   costBasisRoutes(router)
   studyRoutes(router)
   uploadRoutes(router, cfg)
+  reportRoutes(router)
   reviewRoutes(router, cfg)
   operatingRoutes(router, cfg)
 }

@@ -249,9 +249,9 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     ])
   }
   const xStarN = eq.x(yIn)
-  if (!(xStarN > 0 && xStarN < 1)) {
+  if (!(xStarN > 0 && xStarN < 0.99) || Math.abs(eq.y(xStarN) - yIn) > 1e-7 * yIn) {
     throw new InfeasibleDesignError([
-      { path: 'equilibrium', code: 'equilibriumOutOfRange', message: `The liquid in equilibrium with the inlet gas would have x = ${xStarN}; the equilibrium model does not apply at this gas composition` },
+      { path: 'equilibrium', code: 'equilibriumOutOfRange', message: `No liquid is in equilibrium with the inlet gas (y = ${yIn}): the model gives x* = ${xStarN.toPrecision(4)}; the gas may be above its dew point or the equilibrium model does not apply at this composition` },
     ])
   }
   if (xStarN > eq.xMax) {
@@ -368,7 +368,6 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     const rule = tr.spacingRule
     t = rule[0]!.spacing
     let tPrev = NaN
-    let tPrev2 = NaN
     for (;;) {
       spacingIterations++
       sizeEnd(bot, t, rhoL, FST, FF, FHA, floodFraction, undefined, sBot)
@@ -378,13 +377,13 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
       const Dsel = roundUp(Dcalc, step)
       const tNew = spacingFromRule(rule, Dsel)
       if (tNew === t) break
-      if (tNew === tPrev2 || spacingIterations >= 20) {
+      if (tNew === tPrev || spacingIterations >= 20) {
         // oscillation between two spacings: take the larger and warn
+        const lo = Math.min(t, tNew)
         t = Math.max(t, tNew)
-        warnings.push({ code: 'spacingOscillation', message: `Tray spacing and diameter did not settle (oscillating between ${tPrev2} and ${t} m); the larger spacing ${t} m is used`, path: 'tray.spacing' })
+        warnings.push({ code: 'spacingOscillation', message: `Tray spacing and diameter did not settle (oscillating between ${lo} and ${t} m); the larger spacing ${t} m is used`, path: 'tray.spacing' })
         break
       }
-      tPrev2 = tPrev
       tPrev = t
       t = tNew
     }

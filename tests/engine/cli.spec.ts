@@ -1,0 +1,72 @@
+import { spawnSync } from 'node:child_process'
+import { mkdtempSync, writeFileSync, rmSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { afterAll, describe, expect, it } from 'vitest'
+import { main } from '../../server/cli/design.ts'
+
+const tsx = join(process.cwd(), 'node_modules/tsx/dist/cli.mjs')
+const cli = join(process.cwd(), 'server/cli/design.ts')
+const dir = mkdtempSync(join(tmpdir(), 'scrubwright-cli-'))
+afterAll(() => rmSync(dir, { recursive: true, force: true }))
+
+function spawnCli(file: string) {
+  return spawnSync(process.execPath, [tsx, cli, file], { encoding: 'utf8', timeout: 60000 })
+}
+/** In-process run of the same main() the command calls. */
+function runInProcess(file: string) {
+  let stdout = ''
+  let stderr = ''
+  const status = main([file], (s) => (stdout += s), (s) => (stderr += s))
+  return { status, stdout, stderr }
+}
+
+describe('design command line (child process)', { timeout: 60000 }, () => {
+  it('prints the design of data/examples/design.json and exits 0', () => {
+    const r = spawnCli('data/examples/design.json')
+    expect(r.status).toBe(0)
+    const out = JSON.parse(r.stdout) as { summary: { selectedDiameter: number; actualTrays: number } }
+    expect(out.summary.selectedDiameter).toBeGreaterThan(1)
+    expect(out.summary.actualTrays).toBeGreaterThan(5)
+  })
+  it('bad input: exit code 2 and the field path on stderr', () => {
+    const f = join(dir, 'bad.json')
+    writeFileSync(
+      f,
+      JSON.stringify({ gas: { flow: { value: 3, unit: 'bushel/h' }, temperature: 30, pressure: 100, soluteMoleFraction: 0.01, carrier: 'air' }, solute: 'ethanol', solvent: 'water', equilibrium: { model: 'constantK', K: 1 }, recovery: 0.9, solventFactor: 1.3 }),
+    )
+    const r = spawnCli(f)
+    expect(r.status).toBe(2)
+    expect(r.stderr).toContain('gas.flow')
+    expect(r.stdout).toBe('')
+  })
+})
+
+describe('design command line (in process)', () => {
+  it('a batch file gives an array in order', () => {
+    const r = runInProcess('data/examples/design-batch.json')
+    expect(r.status).toBe(0)
+    const out = JSON.parse(r.stdout) as { summary: { recovery: number } }[]
+    expect(out).toHaveLength(4)
+    expect(out[1]!.summary.recovery).toBe(0.995)
+  })
+  it('every example file designs', () => {
+    for (const f of ['design.json', 'design-acetone.json', 'design-table.json']) expect(runInProcess(`data/examples/${f}`).status).toBe(0)
+  })
+  it('not JSON or a missing file: exit code 2', () => {
+    const f = join(dir, 'broken.json')
+    writeFileSync(f, '{ "gas": ')
+    expect(runInProcess(f).status).toBe(2)
+    expect(runInProcess(join(dir, 'nope.json')).status).toBe(2)
+  })
+  it('an infeasible design: exit code 3 with the reason', () => {
+    const f = join(dir, 'infeasible.json')
+    writeFileSync(f, JSON.stringify({ gas: { flow: 100, temperature: 30, pressure: 100, soluteMoleFraction: 0.01, carrier: 'air' }, solute: 'ethanol', solvent: 'water', equilibrium: { model: 'constantK', K: 1 }, recovery: 0.9, solventFactor: 0.8 }))
+    const r = runInProcess(f)
+    expect(r.status).toBe(3)
+    expect(r.stderr).toContain('belowMinimumSolvent')
+  })
+  it('usage without a file: exit code 2', () => {
+    expect(main([], () => {}, () => {})).toBe(2)
+  })
+})

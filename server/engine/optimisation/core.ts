@@ -22,13 +22,15 @@
  * exceed search.maxDiameter and search.maxHeight. Infeasible points have TAC = +infinity.
  *
  * Method:
- *   1. coarse grid, 6 (u) x 5 (L/Lmin) x 3 (flood) for every tray spacing;
+ *   1. coarse grid, 5 (u) x 4 (L/Lmin) x 3 (flood) for every tray spacing;
  *   2. pattern search (compass moves with expansion, diagonal moves in (u, L/Lmin), neighbour
  *      moves on the spacing, step halving; after Hooke and Jeeves 1961, key hookeJeeves1961) from
  *      the best grid point of each of the best tray counts and of each spacing (4 starts);
  *   3. ridge search on the best point's tray count and its two neighbours: along L/Lmin, recovery
  *      at the cell edge, minimised by a 5-point scan and golden-section refinement;
- *   4. a fine pattern search and a bisection polish that pushes each variable to its cell edge.
+ *   4. a fine pattern search and a bisection polish that pushes each variable to its cell edge
+ *      and hops into the next cell when that is cheaper (e.g. a higher fraction of flood giving
+ *      the next smaller diameter).
  * Verified against a dense brute-force grid (tests/engine/optimisation.spec.ts). Designs are cached
  * by their variables, so re-pricing under a changed cost basis (sensitivity) mostly reuses them.
  */
@@ -314,22 +316,29 @@ function polishEdges(ev: Evaluator, basis: CostBasisData, box: Box, start: X, ro
         // bisection between x (inside the cell) and the bound (outside or infeasible)
         let a = x[k]
         let b = bound
-        const tol = 1e-6 * Math.max(1, Math.abs(box[k][1] - box[k][0]))
+        const tol = 1e-4 * Math.abs(box[k][1] - box[k][0])
         for (let i = 0; i < 40 && Math.abs(b - a) > tol; i++) {
           const m = (a + b) / 2
           const dm = ev.designAt({ ...x, [k]: m })
           if (typeof dm !== 'string' && sameCell(d0, dm)) a = m
           else b = m
         }
-        if (a !== x[k]) {
-          const ya = { ...x, [k]: a }
-          const ta = ev.tac(ya, basis)
-          if (ta < best) {
-            best = ta
-            x = ya
-            moved = true
-            break
+        // the last point inside the cell, and the first point of the next cell (cell hopping:
+        // e.g. a higher fraction of flood that gives the next smaller diameter)
+        let moveTo: X | null = null
+        for (const v of [a, b]) {
+          if (v === x[k]) continue
+          const y = { ...x, [k]: v }
+          const t = ev.tac(y, basis)
+          if (t < best) {
+            best = t
+            moveTo = y
           }
+        }
+        if (moveTo) {
+          x = moveTo
+          moved = true
+          break
         }
       }
     }
@@ -425,10 +434,12 @@ function edgeUSolve(ev: Evaluator, x: X, trays: number, box: Box): number | null
  * factor after a short scan (the ridge can have steps where the diameter changes).
  */
 function ridgeSearch(ev: Evaluator, basis: CostBasisData, box: Box, at: X, trays: number): { x: X; tac: number } | null {
+  let hint = at.u
   const h = (s: number): { x: X; tac: number } => {
-    const x0 = { ...at, s }
+    const x0 = { ...at, s, u: hint }
     const u = edgeU(ev, x0, trays, box)
     if (u === null) return { x: x0, tac: Infinity }
+    hint = u
     const x = { ...x0, u }
     return { x, tac: ev.tac(x, basis) }
   }
@@ -456,7 +467,7 @@ function ridgeSearch(ev: Evaluator, basis: CostBasisData, box: Box, at: X, trays
   let fc = h(c)
   let fd = h(d)
   let out = first
-  for (let i = 0; i < 16 && hi - lo > 5e-4 * (b0 - a0); i++) {
+  for (let i = 0; i < 12 && hi - lo > 2e-3 * (b0 - a0); i++) {
     if (fc.tac <= fd.tac) {
       hi = d
       d = c
@@ -485,7 +496,7 @@ export interface SearchOutcome {
 export function searchOptimum(ev: Evaluator, basis: CostBasisData, opts: { grid?: [number, number, number]; starts?: number } = {}): SearchOutcome {
   const sp = ev.search
   const box: Box = { u: [ev.uLo, ev.uHi], s: [sp.solventFactor.min, sp.solventFactor.max], f: [sp.floodFraction.min, sp.floodFraction.max] }
-  const [nu, ns, nf] = opts.grid ?? [6, 5, 3]
+  const [nu, ns, nf] = opts.grid ?? [5, 4, 3]
   const us = linspace(box.u[0], box.u[1], box.u[1] > box.u[0] ? nu : 1)
   const ss = linspace(box.s[0], box.s[1], box.s[1] > box.s[0] ? ns : 1)
   const fs = linspace(box.f[0], box.f[1], box.f[1] > box.f[0] ? nf : 1)
@@ -566,7 +577,7 @@ function refine(ev: Evaluator, basis: CostBasisData, box: Box, start: { x: X; ta
     }
   }
   const fin = patternSearch(ev, basis, box, best.x, 1 / 64, 1 / 1024)
-  return polishEdges(ev, basis, box, fin.x, 2)
+  return polishEdges(ev, basis, box, fin.x, 4)
 }
 
 /** TAC vs one variable, the others held at the optimum. */

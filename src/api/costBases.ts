@@ -7,7 +7,7 @@ const base = (siteId: number) => `/sites/${siteId}/cost-bases`
 export const costBasesApi = {
   list: (siteId: number): Promise<CostBasisVersionRow[] | { items: CostBasisVersionRow[] }> => http.get(base(siteId)),
   get: (siteId: number, id: number): Promise<CostBasisVersion> => http.get(`${base(siteId)}/${id}`),
-  create: (siteId: number, body: { name: string; basedOnId?: number; preset?: string }): Promise<CostBasisVersion> =>
+  create: (siteId: number, body: { name?: string; basedOnId?: number; preset?: string }): Promise<CostBasisVersion> =>
     http.post(base(siteId), body),
   update: (
     siteId: number,
@@ -16,5 +16,6 @@ export const costBasesApi = {
   ): Promise<CostBasisVersion> => http.put(`${base(siteId)}/${id}`, body),
   publish: (siteId: number, id: number, body: { effectiveDate: string; lockVersion: number }): Promise<CostBasisVersion> =>
     http.post(`${base(siteId)}/${id}/publish`, body),
+  discard: (siteId: number, id: number): Promise<unknown> => http.del(`${base(siteId)}/${id}`),
   presets: (): Promise<CostPreset[] | { items: CostPreset[] }> => http.get('/cost-presets'),
 }

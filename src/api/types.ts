@@ -199,28 +199,20 @@ export interface StudyView extends StudyRow {
   can?: StudyPermissions
 }
 
-export interface CostBasisVersionRow {
-  id: number
-  version: number
-  status: 'draft' | 'published'
-  name: string
-  notes?: string | null
-  effectiveDate?: string | null
-  publishedAt?: string | null
-  lockVersion: number
-  [k: string]: unknown
-}
+export type { CostBasisVersionView as CostBasisVersionRow } from '@shared/schemas/costBases.ts'
+import type { CostBasisVersionView as CostBasisVersionRow } from '@shared/schemas/costBases.ts'
 
 export interface CostBasisVersion extends CostBasisVersionRow {
   data: CostBasisInput
 }
 
 export interface CostPreset {
-  key?: string
-  id?: string
+  key: string
   name: string
-  source?: string
-  [k: string]: unknown
+  indexName?: string
+  targetIndex?: number
+  targetYear?: string
+  currency?: string
 }
 
 export interface ComponentEntry {

@@ -113,6 +113,7 @@ export interface CaseSI {
     foamingFactor: number
     weirHeight: number // m
     downcomerClearance: number // m (apron clearance under the downcomer)
+    turndownFraction: number // lowest gas rate as a fraction of design, for the weeping check
     spacingRule: SpacingRuleRow[]
   }
   efficiency: { model: 'oconnell' } | { model: 'fixed'; value: number }
@@ -145,6 +146,7 @@ export const CASE_DEFAULTS = {
     foamingFactor: 1.0, // non-foaming
     weirHeight: 0.05, // m, Sinnott: 40-50 mm above atmospheric pressure
     downcomerClearanceBelowWeir: 0.01, // m: apron clearance = weir height - 10 mm (common practice)
+    turndownFraction: 0.5, // sieve trays turn down to about 50 % of design gas before weeping (common practice)
   },
   column: {
     diameterStep: 0.05, // m, common practice
@@ -390,6 +392,7 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
       : Math.max(weirHeight - D.downcomerClearanceBelowWeir, 0.5 * weirHeight)
   const spacing: number | 'auto' = t.spacing === undefined || t.spacing === 'auto' ? 'auto' : c.positive(c.q('length', t.spacing, 'tray.spacing'), 'tray.spacing')
   const floodFraction = t.floodFraction !== undefined ? c.range(t.floodFraction, 0, 1, 'tray.floodFraction', true, true) : D.floodFraction
+  const turndownFraction = t.turndownFraction !== undefined ? c.range(t.turndownFraction, 0, 1, 'tray.turndownFraction', true, false) : D.turndownFraction
   const foamingFactor = t.foamingFactor !== undefined ? c.range(t.foamingFactor, 0, 1.5, 'tray.foamingFactor', true, false) : D.foamingFactor
   let spacingRule: SpacingRuleRow[]
   if (t.spacingRule) {
@@ -447,7 +450,7 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
     columnTemperature: colT,
     recovery,
     solventFactor,
-    tray: { holeDiameter, holePitch, thickness, spacing, floodFraction, foamingFactor, weirHeight, downcomerClearance, spacingRule },
+    tray: { holeDiameter, holePitch, thickness, spacing, floodFraction, foamingFactor, weirHeight, downcomerClearance, turndownFraction, spacingRule },
     efficiency,
     method: input.method ?? 'auto',
     column,

@@ -422,6 +422,11 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
   const hBot = trayHydraulics(bot, sBot, t, rhoL, sigma, Aa, Ah, AhAa, An, Ad, Lw, c, Co)
   const hTop = trayHydraulics(top, sTop, t, rhoL, sigma, Aa, Ah, AhAa, An, Ad, Lw, c, Co)
   const hD = designEndIsBottom ? hBot : hTop
+  // turndown: the lowest gas rate at design liquid rate, at the end that weeps first
+  const tdf = tr.turndownFraction
+  const sLow = hTop.Fr <= hBot.Fr ? top : bot
+  const turn: EndStreams = { gasMol: sLow.gasMol * tdf, gasMass: sLow.gasMass * tdf, rhoV: sLow.rhoV, Q: sLow.Q * tdf, liqMass: sLow.liqMass, qL: sLow.qL }
+  const hTurn = trayHydraulics(turn, hTop.Fr <= hBot.Fr ? sTop : sBot, t, rhoL, sigma, Aa, Ah, AhAa, An, Ad, Lw, c, Co)
 
   // ---- checks (worst end for each)
   const dPtray = Math.max(hBot.dP, hTop.dP)
@@ -468,6 +473,15 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
       limit: 0.1,
       unit: '-',
       advice: psi <= 0.1 ? undefined : 'Lower the fraction of flood or increase the tray spacing',
+    },
+    {
+      key: 'turndown',
+      label: `Weeping at turndown (${Math.round(100 * tdf)} % of design gas)`,
+      status: hTurn.Fr >= WEEP_FROUDE_LIMIT ? 'pass' : 'warn',
+      value: hTurn.Fr,
+      limit: WEEP_FROUDE_LIMIT,
+      unit: '-',
+      advice: hTurn.Fr >= WEEP_FROUDE_LIMIT ? undefined : 'The trays may weep at the lowest gas rate: reduce the hole area or accept a smaller turndown range',
     },
     {
       key: 'downcomerBackup',
@@ -619,13 +633,14 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
             weirLength: Lw,
             bottom: { streams: bot, sizing: sBot, tray: hBot },
             top: { streams: top, sizing: sTop, tray: hTop },
+            turndown: { fraction: tdf, tray: hTurn },
           },
           vessel: { designPressure: Pd, thicknessCalculated: tCalc, thicknessMinimum: tMin, thickness: tShell, mass: mShell, height },
         }
       : {},
   }
   const detailChecksum = wantDetail
-    ? sumStreams(bot) + sumStreams(top) + sumSizing(sBot) + sumSizing(sTop) + sumTray(hBot) + sumTray(hTop) + Atop + Abot + Kbot + Ktop + tCalc + pinch.Xpinch + infoSum(eqb.info)
+    ? sumStreams(bot) + sumStreams(top) + sumSizing(sBot) + sumSizing(sTop) + sumTray(hBot) + sumTray(hTop) + sumTray(hTurn) + Atop + Abot + Kbot + Ktop + tCalc + pinch.Xpinch + infoSum(eqb.info)
     : 0
   guardFinite(result, detailChecksum)
   return result

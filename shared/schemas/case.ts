@@ -127,6 +127,7 @@ export const traySchema = z
     foamingFactor: fraction.optional(),
     weirHeight: quantity('smallLength').optional(),
     downcomerClearance: quantity('smallLength').optional(),
+    turndownFraction: fraction.optional(),
     spacingRule: spacingRuleSchema.optional(),
   })
   .strict()

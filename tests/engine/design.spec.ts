@@ -56,9 +56,9 @@ describe('the demo case, looked at as an engineer would', () => {
     expect(s.pressureDropPerTray).toBeLessThan(1200)
     expect(s.columnHeight).toBeCloseTo(s.actualTrays * 0.6 + 1 + 3, 9)
   })
-  it('carries the vessel caution and all six checks', () => {
+  it('carries the vessel caution and all seven checks', () => {
     expect(r.cautions[0]).toMatch(/Preliminary estimate only/)
-    expect(r.checks.map((c) => c.key).sort()).toEqual(['downcomerBackup', 'downcomerResidence', 'entrainment', 'flooding', 'pressureDropPerTray', 'weeping'])
+    expect(r.checks.map((c) => c.key).sort()).toEqual(['downcomerBackup', 'downcomerResidence', 'entrainment', 'flooding', 'pressureDropPerTray', 'turndown', 'weeping'])
     for (const c of r.checks) expect(['pass', 'warn', 'fail']).toContain(c.status)
   })
   it('hazard cautions from the library: flammable ethanol, asphyxiant CO2', () => {

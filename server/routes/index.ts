@@ -7,6 +7,7 @@ import { uploadRoutes } from './uploads.ts'
 import { reportRoutes } from './reports.ts'
 import { reviewRoutes } from './review.ts'
 import { operatingRoutes } from './operating.ts'
+import { allocationRoutes } from './allocation.ts'
 
 /** Feature routes beyond identity: designs, cost bases, studies, runs, review... */
 export function registerFeatureRoutes(router: Router, cfg: Config): void {
@@ -17,4 +18,5 @@ export function registerFeatureRoutes(router: Router, cfg: Config): void {
   reportRoutes(router)
   reviewRoutes(router, cfg)
   operatingRoutes(router, cfg)
+  allocationRoutes(router)
 }

@@ -14,7 +14,7 @@ async function approvedStudy(site: number) {
   const opt = await api().post(`/api/v1/sites/${site}/studies/${s.body.id}/options`).set(eng).send({ runId: run.body.id, name: 'Base' })
   await api().post(`/api/v1/sites/${site}/studies/${s.body.id}/submit`).set(eng).send({ recommendedOptionId: opt.body.id })
   await api().post(`/api/v1/sites/${site}/studies/${s.body.id}/approve`).set(rev).send({})
-  return { id: s.body.id as number, design: run.body.result.summary as Record<string, number> }
+  return { id: s.body.id as number, design: run.body.result.summary as { gasFlow: number; solventFlow: number; recovery: number } }
 }
 
 describe('operating log', () => {

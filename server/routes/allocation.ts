@@ -1,0 +1,25 @@
+import type { Router } from 'express'
+import { defineRoutes, parse, ANY_ROLE } from './define.ts'
+import * as svc from '../services/allocation.ts'
+import { idParam } from '../../shared/schemas/common.ts'
+import { allocationBody } from '../../shared/schemas/allocation.ts'
+
+export function allocationRoutes(router: Router): Router {
+  return defineRoutes(router, [
+    {
+      method: 'post', path: '/sites/:siteId/allocations/solve', access: { kind: 'site', roles: ['engineer', 'economist', 'admin'] },
+      summary: 'Split a limited solvent supply between absorbers (LP); optionally save it',
+      handler: async (req, res) => {
+        res.status(200).json(await svc.solve(req.site!.id, parse(allocationBody, req.body), req.user!, req.requestId))
+      },
+    },
+    {
+      method: 'get', path: '/sites/:siteId/allocations', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Saved allocations',
+      handler: (req) => svc.listSaved(req.site!.id),
+    },
+    {
+      method: 'get', path: '/sites/:siteId/allocations/:id', access: { kind: 'site', roles: ANY_ROLE }, summary: 'One saved allocation',
+      handler: (req) => svc.getSaved(req.site!.id, parse(idParam, req.params.id, 'params.id')),
+    },
+  ])
+}

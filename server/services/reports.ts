@@ -330,7 +330,8 @@ export async function buildReport(siteId: number, studyId: number, generatedBy: 
     options: optionRows,
     recommendedOptionId: s.recommendedOptionId,
     review: events.map((e) => ({ kind: e.kind, who: who.get(e.userId) ?? `user ${e.userId}`, at: e.createdAt, body: e.body })),
-    cautions: [...new Set([VESSEL_CAUTION, ...cautions])],
+    // The report's own vessel caution stands for the engine's wordings of the same warning.
+    cautions: [VESSEL_CAUTION, ...new Set(cautions.filter((c) => !/pressure-vessel code/i.test(c)))],
   }
 }
 

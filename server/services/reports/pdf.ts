@@ -95,7 +95,7 @@ function table(doc: Doc, columns: Column[], rows: string[][], colour?: (row: num
 }
 
 function keyValues(doc: Doc, pairs: [string, string][]): void {
-  table(doc, [{ title: 'Item', width: 200 }, { title: 'Value', width: 295 }], pairs.map(([k, v]) => [k, v]))
+  table(doc, [{ title: 'Item', width: 150 }, { title: 'Value', width: 345 }], pairs.map(([k, v]) => [k, v]))
 }
 
 /** Round axis bounds and a tick step (1, 2 or 5 times a power of ten). */
@@ -197,8 +197,11 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
   doc.font('Helvetica-Bold').fontSize(18).fillColor(INK).text(pdfText(m.study.name), { width })
   if (m.study.description) doc.font('Helvetica').fontSize(9.5).fillColor(MUTED).text(pdfText(m.study.description), { width })
   doc.moveDown(0.5)
-  const runLine = (r: { id: number; costBasisVersion: number | null; engineVersion: string; createdAt: Date; createdByName: string | null } | undefined) =>
-    r ? `#${r.id} of ${dateTime(r.createdAt)}${r.createdByName ? ` by ${r.createdByName}` : ''}; cost basis version ${r.costBasisVersion ?? 'none'}; ${r.engineVersion}` : 'none'
+  const runLine = (r: { id: number; createdAt: Date; createdByName: string | null } | undefined) =>
+    r ? `#${r.id}, ${dateTime(r.createdAt)}${r.createdByName ? `, ${r.createdByName}` : ''}` : 'none'
+  const designRun = m.design?.run.kind === 'design' ? m.design.run : undefined
+  const versions = (pick: (r: { costBasisVersion: number | null; engineVersion: string }) => string) =>
+    [designRun ? `${pick(designRun)} (design)` : '', m.optimise ? `${pick(m.optimise.run)} (optimisation)` : ''].filter(Boolean).join('; ') || 'none'
   keyValues(doc, [
     ['Site', m.site.name],
     ['Study', `${m.study.name} (id ${m.study.id})`],
@@ -206,8 +209,10 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
     ['Revision', String(m.study.revision)],
     ['Owner', m.study.ownerName],
     ['Report date', `${dateTime(m.generatedAt)}, by ${m.generatedBy}`],
-    ['Design run', runLine(m.design?.run.kind === 'design' ? m.design.run : undefined)],
+    ['Design run', runLine(designRun)],
     ['Optimisation run', runLine(m.optimise?.run)],
+    ['Cost basis version', versions((r) => (r.costBasisVersion === null ? 'none' : `version ${r.costBasisVersion}`))],
+    ['Engine version', versions((r) => r.engineVersion)],
   ])
   if (!m.design && !m.optimise) {
     doc.moveDown(0.5)
@@ -286,7 +291,7 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
   if (!m.options.length) note(doc, 'No options are pinned.')
   else {
     table(doc,
-      [{ title: 'Option', width: 150 }, { title: 'Run', width: 70 }, { title: 'Trays', width: 45, align: 'right' }, { title: 'Diameter [m]', width: 70, align: 'right' }, { title: `TAC [${m.currency || 'currency'}/yr]`, width: 90, align: 'right' }, { title: 'Notes', width: 70 }],
+      [{ title: 'Option', width: 140 }, { title: 'Run', width: 70 }, { title: 'Trays', width: 40, align: 'right' }, { title: 'Diameter [m]', width: 65, align: 'right' }, { title: `TAC [${m.currency || 'currency'}/yr]`, width: 80, align: 'right' }, { title: 'Notes', width: 100 }],
       m.options.map((o) => [
         `${o.name}${o.id === m.recommendedOptionId ? ' (recommended)' : ''}`,
         `#${o.runId} ${o.run.kind}`,

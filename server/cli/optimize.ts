@@ -20,14 +20,28 @@ function isObject(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v)
 }
 
-/** The cost basis of an optimize file: a full object, { preset }, or omitted (demo basis). */
+/** Objects merged key by key (arrays and values replaced). */
+function deepMerge(base: unknown, over: unknown): unknown {
+  if (!isObject(base) || !isObject(over)) return over
+  const out: Record<string, unknown> = { ...base }
+  for (const [k, v] of Object.entries(over)) out[k] = k in base ? deepMerge(base[k], v) : v
+  return out
+}
+
+/**
+ * The cost basis of an optimize file: a full object; { "preset": "key" }; a preset with changes
+ * ({ "preset": "key", "utilities": { "electricityPrice": 0.1 } }, merged field by field); or
+ * omitted (the demo basis).
+ */
 export function costBasisFrom(raw: unknown): CostBasisData {
   if (raw === undefined) return loadPreset(DEFAULT_PRESET)
-  if (isObject(raw) && typeof raw.preset === 'string' && Object.keys(raw).length === 1) {
-    if (!hasPreset(raw.preset)) {
-      throw new InvalidInputError('costBasis.preset', `unknown preset '${raw.preset}'; known: ${listPresets().map((p) => p.key).join(', ')}`)
+  if (isObject(raw) && 'preset' in raw) {
+    const { preset, ...changes } = raw
+    if (typeof preset !== 'string' || !hasPreset(preset)) {
+      throw new InvalidInputError('costBasis.preset', `unknown preset '${String(preset)}'; known: ${listPresets().map((p) => p.key).join(', ')}`)
     }
-    return loadPreset(raw.preset)
+    if (Object.keys(changes).length === 0) return loadPreset(preset)
+    raw = deepMerge(loadPreset(preset), changes)
   }
   const r = costBasisSchema.safeParse(raw)
   if (!r.success) {

@@ -62,6 +62,18 @@ describe('npm run optimize -- FILE.json', () => {
     expect((JSON.parse(r.out) as { costBasis: { targetIndex: number } }).costBasis.targetIndex).toBe(397)
   })
 
+  it('a preset with changes merged field by field', () => {
+    const r = runWith({ ...base, costBasis: { preset: 'halvard-marrow-bay', utilities: { electricityPrice: 0.2 } } })
+    expect(r.code).toBe(0)
+    const j = JSON.parse(r.out) as { costBasis: { name: string }; optimum: { breakdown: { operating: { key: string; quantity: number; annual: number }[] } } }
+    expect(j.costBasis.name).toMatch(/Marrow Bay/)
+    const pump = j.optimum.breakdown.operating.find((o) => o.key === 'pumpElectricity')
+    expect(pump?.annual).toBeCloseTo((pump?.quantity ?? 0) * 0.2, 6)
+    const bad = runWith({ ...base, costBasis: { preset: 'halvard-marrow-bay', capital: { interestRate: 2 } } })
+    expect(bad.code).toBe(2)
+    expect(bad.err).toContain('costBasis.capital.interestRate')
+  })
+
   it('bad input exits 2 with the field path on stderr', () => {
     const cases: [unknown, string][] = [
       [{ ...base, search: { recovery: { min: 1.5 } } }, 'search.recovery.min'],

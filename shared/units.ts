@@ -172,7 +172,25 @@ function kindSense(kind: QuantityKind): PressureSense {
   return kind === 'pressure' ? 'absolute' : kind === 'pressureGauge' ? 'gauge' : 'plain'
 }
 
+// Every supported conversion is affine (scale and offset), so each (kind, from, to) is
+// worked out once through mathjs and cached as value * scale + offset.
+const affineCache = new Map<string, { scale: number; offset: number }>()
+
 function convertForKind(kind: QuantityKind, value: number, from: string, to: string): number {
+  if (!Number.isFinite(value)) throw new UnitError('notFinite', from, `Value ${value} is not a finite number`, kind)
+  const key = kind + '|' + from + '|' + to
+  let m = affineCache.get(key)
+  if (!m) {
+    const offset = convertForKindSlow(kind, 0, from, to)
+    const scale = convertForKindSlow(kind, 1, from, to) - offset
+    m = { scale, offset }
+    if (affineCache.size > 2000) affineCache.clear()
+    affineCache.set(key, m)
+  }
+  return value * m.scale + m.offset
+}
+
+function convertForKindSlow(kind: QuantityKind, value: number, from: string, to: string): number {
   const info = kindInfo(kind)
   const sense = kindSense(kind)
   const f = splitPressureSense(from)

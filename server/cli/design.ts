@@ -25,6 +25,16 @@ export function designOutput(raw: unknown): DesignOutput {
   return isBatch(raw) ? evaluateBatch(raw) : evaluateCase(raw)
 }
 
+/**
+ * JSON text of the output: one case pretty-printed; a batch as an array with one compact
+ * result per line (valid JSON, and far smaller for large batches).
+ */
+export function formatOutput(result: DesignOutput): string {
+  if (!Array.isArray(result)) return JSON.stringify(result, null, 2) + '\n'
+  if (result.length === 0) return '[]\n'
+  return '[\n' + result.map((r) => JSON.stringify(r)).join(',\n') + '\n]\n'
+}
+
 /** Read and parse a case file; a JSON error becomes an InvalidInputError. */
 export function readCaseFile(file: string): unknown {
   let text: string
@@ -49,7 +59,7 @@ export function main(argv: string[], out: (s: string) => void = (s) => process.s
   }
   try {
     const result = designOutput(readCaseFile(args[0]!))
-    out(JSON.stringify(result, null, 2) + '\n')
+    out(formatOutput(result))
     return 0
   } catch (e) {
     if (e instanceof InvalidInputError) {

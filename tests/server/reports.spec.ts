@@ -48,7 +48,7 @@ let optimum: { id: number; result: { optimum: { totalAnnualCost: number }; curve
 beforeAll(async () => {
   cobalt = (await siteIds()).cobalt
   const eng = await auth('engineer')
-  const s = await api().post(`/api/v1/sites/${cobalt}/studies`).set(eng).send({ name: 'Report check: FV-201 "copy" / rev', description: 'Ethanol from fermenter CO2 into water.', inputs: ethanolCase })
+  const s = await api().post(`/api/v1/sites/${cobalt}/studies`).set(eng).send({ name: 'Report check: vent scrubber "copy" / rev', description: 'Ethanol from fermenter CO2 into water.', inputs: ethanolCase })
   studyId = s.body.id
   design = (await api().post(`/api/v1/sites/${cobalt}/studies/${studyId}/runs`).set(eng).send({ kind: 'design' })).body
   optimum = (await api().post(`/api/v1/sites/${cobalt}/studies/${studyId}/runs`).set(eng).send({ kind: 'optimize' })).body
@@ -63,11 +63,11 @@ describe('study report (PDF)', () => {
     expect(r.status).toBe(200)
     expect(r.headers['content-type']).toBe('application/pdf')
     expect(r.headers['content-disposition']).toMatch(/^attachment; filename="[\w.-]+\.pdf"$/)
-    expect(r.headers['content-disposition']).toContain('Report-check-FV-201-copy-rev-rev1.pdf')
+    expect(r.headers['content-disposition']).toContain('Report-check-vent-scrubber-copy-rev-rev1.pdf')
     const body = r.body as Buffer
     expect(body.subarray(0, 5).toString('latin1')).toBe('%PDF-')
     const text = await pdfText(body)
-    expect(text).toContain('Report check: FV-201 "copy" / rev')
+    expect(text).toContain('Report check: vent scrubber "copy" / rev')
     expect(text).toContain('Cobalt Ridge fermentation plant')
     for (const section of ['Inputs', 'Design summary', 'Tray checks', 'Cost breakdown', 'Cost curves', 'Options', 'Sign-off history', 'Cautions']) {
       expect(text).toContain(section)

@@ -33,7 +33,7 @@ const base = {
   search: { sensitivity: false },
 }
 
-describe('npm run optimize -- FILE.json', () => {
+describe('npm run optimize -- FILE.json', { timeout: 60_000 }, () => {
   it('prints the optimum, evaluations, curves and sensitivity for the example file', () => {
     const r = run(['--', example])
     expect(r.code).toBe(0)

@@ -6,7 +6,7 @@ import * as svc from '../services/uploads.ts'
 import { AppError, ValidationError } from '../errors.ts'
 import type { Config } from '../config.ts'
 import { idParam } from '../../shared/schemas/common.ts'
-import { equilibriumUploadFields, quotesUploadFields, quoteListQuery, fitBody, adoptFitBody } from '../../shared/schemas/uploads.ts'
+import { equilibriumUploadFields, quoteListQuery, fitBody, adoptFitBody } from '../../shared/schemas/uploads.ts'
 
 const CSV_TYPES = new Set(['text/csv', 'text/plain', 'application/csv'])
 
@@ -77,17 +77,13 @@ export function uploadRoutes(router: Router, cfg: Config): Router {
       method: 'post', path: '/sites/:siteId/uploads/quotes/preview', access: { kind: 'site', roles: ECONOMISTS }, before: [upload],
       summary: 'Check a vendor-quotes CSV: quotes, line-numbered errors and warnings; nothing is saved',
       handler: async (req, res) => {
-        parse(quotesUploadFields, req.body ?? {}, 'body')
         res.status(200).json(await svc.previewQuotes(req.site!.id, fileOf(req)))
       },
     },
     {
       method: 'post', path: '/sites/:siteId/uploads/quotes', access: { kind: 'site', roles: ECONOMISTS }, before: [upload],
       summary: 'Save vendor quotes from a CSV in one transaction (all or nothing) under one upload reference',
-      handler: (req) => {
-        parse(quotesUploadFields, req.body ?? {}, 'body')
-        return svc.saveQuotes(req.site!.id, fileOf(req), req.user!, req.requestId)
-      },
+      handler: (req) => svc.saveQuotes(req.site!.id, fileOf(req), req.user!, req.requestId),
     },
     {
       method: 'get', path: '/sites/:siteId/quotes', access: { kind: 'site', roles: ANY_ROLE },

@@ -564,14 +564,20 @@ function adoptedCurve(old: CostCurveData, a: { logBase: 'e' | '10'; coefficients
   }
 }
 
+export interface AdoptFitInput {
+  equipmentType: FittableType
+  coefficients: number[]
+  logBase?: 'e' | '10'
+  sizeMin?: number
+  sizeMax?: number
+  baseIndex?: number
+  baseYear?: string
+  source?: string
+  lockVersion: number
+}
+
 /** Write fitted coefficients into a draft cost basis (409 when published or stale). */
-export async function adoptFit(
-  siteId: number,
-  id: number,
-  body: { equipmentType: FittableType; logBase: 'e' | '10'; coefficients: number[]; sizeMin: number; sizeMax: number; baseIndex: number; baseYear: string; source: string; lockVersion: number },
-  actor: AuthUser,
-  requestId: string,
-) {
+export async function adoptFit(siteId: number, id: number, body: AdoptFitInput, actor: AuthUser, requestId: string) {
   await sequelize.transaction(async (transaction) => {
     const b = await CostBasis.findOne({ where: { id, siteId }, transaction, lock: transaction.LOCK.UPDATE })
     if (!b) throw new NotFoundError('Cost basis')
@@ -584,7 +590,15 @@ export async function adoptFit(
     const data = structuredClone(b.data) as CostBasisData
     const corr = data.correlations[body.equipmentType]
     const before = corr.curve
-    corr.curve = adoptedCurve(before, body)
+    corr.curve = adoptedCurve(before, {
+      coefficients: body.coefficients,
+      logBase: body.logBase ?? before.logBase,
+      sizeMin: body.sizeMin ?? before.sizeMin,
+      sizeMax: body.sizeMax ?? before.sizeMax,
+      baseIndex: body.baseIndex ?? data.general.targetIndex,
+      baseYear: body.baseYear ?? (body.baseIndex === undefined ? data.general.targetYear : `index ${body.baseIndex}`),
+      source: body.source ?? 'Fit to vendor quotes of the site',
+    })
     const checked = costBasisSchema.safeParse(data)
     if (!checked.success) throw new ValidationError('The fitted curve does not fit the cost basis.', zodDetails(checked.error, 'body'))
     b.data = checked.data

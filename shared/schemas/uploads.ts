@@ -26,11 +26,6 @@ export const equilibriumUploadFields = z.object({
   temperature: z.coerce.number().gt(-273.15, 'must be above absolute zero (degC)').lt(1000).optional(),
 })
 
-/** Form fields sent with a quotes CSV (multipart). */
-export const quotesUploadFields = z.object({
-  note: z.string().max(500).optional(),
-})
-
 export const quoteListQuery = z.object({
   equipmentType: z.enum(EQUIPMENT_TYPES).optional(),
 })
@@ -45,17 +40,22 @@ export const fitBody = z.object({
   costBasisId: z.number().int().positive().optional(),
 })
 
+/**
+ * Adopt fitted coefficients into a draft: the `adopt` object of a fit answer plus the draft's
+ * lockVersion. Left out: logBase, size range and base index stay as in the draft's curve
+ * (base index: the basis's target index), source says "Fit to vendor quotes".
+ */
 export const adoptFitBody = z.object({
   equipmentType: z.enum(FITTABLE_TYPES),
-  logBase: z.enum(['e', '10']),
   coefficients: z.array(z.number()).min(1).max(5),
-  sizeMin: z.number().nonnegative(),
-  sizeMax: z.number().positive(),
-  baseIndex: z.number().positive(),
-  baseYear: shortText(80),
-  source: shortText(300),
+  logBase: z.enum(['e', '10']).optional(),
+  sizeMin: z.number().nonnegative().optional(),
+  sizeMax: z.number().positive().optional(),
+  baseIndex: z.number().positive().optional(),
+  baseYear: shortText(80).optional(),
+  source: shortText(300).optional(),
   lockVersion: z.number().int().min(0),
-}).refine((b) => b.sizeMax >= b.sizeMin, { message: 'must not be below sizeMin', path: ['sizeMax'] })
+}).refine((b) => b.sizeMax === undefined || b.sizeMin === undefined || b.sizeMax >= b.sizeMin, { message: 'must not be below sizeMin', path: ['sizeMax'] })
 
 /** A problem in an uploaded file, with the line as in the file (header = line 1). */
 export interface CsvIssue {

@@ -289,6 +289,10 @@ describe('vendor quotes', () => {
     expect(await AuditEntry.count({ where: { action: 'adopt_fit', entityId: String(draft.body.id) } })).toBe(1)
     const stale = await api().post(`/api/v1/sites/${cobalt}/cost-bases/${draft.body.id}/adopt-fit`).set(econ).send({ ...fit.body.adopt, lockVersion: draft.body.lockVersion })
     expect(stale.status).toBe(409)
+    // The short form: coefficients only; the rest stays as in the draft's curve.
+    const short = await api().post(`/api/v1/sites/${cobalt}/cost-bases/${draft.body.id}/adopt-fit`).set(econ).send({ equipmentType: 'blower', coefficients: [7, 0.8], lockVersion: adopt.body.lockVersion })
+    expect(short.status).toBe(200)
+    expect(short.body.data.correlations.blower.curve).toMatchObject({ coefficients: [7, 0.8], multiplier: 1, linearCoefficient: 0, sizeUnit: 'hp', sizeMin: fit.body.curve.sizeMin, logBase: fit.body.curve.logBase })
     const published = await api().post(`/api/v1/sites/${cobalt}/cost-bases/${current.body.id}/adopt-fit`).set(econ).send({ ...fit.body.adopt, lockVersion: current.body.lockVersion })
     expect(published.status).toBe(409)
     await api().delete(`/api/v1/sites/${cobalt}/cost-bases/${draft.body.id}`).set(econ)

@@ -18,6 +18,7 @@ export interface CheckResult {
   limit: number
   unit: string // unit of value and limit, e.g. 'Pa', 'm', 's', '-'
   advice?: string // what to change when not pass
+  source?: string // added by the design engine: method and reference key(s) in server/engine/references.ts
 }
 
 export interface EngineWarning {

@@ -60,6 +60,26 @@ export interface DesignOptions {
   detail?: boolean
 }
 
+/** Reference keys (server/engine/references.ts) of the methods a design uses. */
+export const DESIGN_REFERENCES: readonly string[] = Object.freeze([
+  'codata2018',
+  'iapwsR176',
+  'kell1975',
+  'waterViscosityVogel',
+  'sander2015',
+  'kremser1930',
+  'benitez2009',
+  'treybal1980',
+  'fair1961',
+  'bennett1983',
+  'oconnell1946',
+  'seaderHenley2011',
+  'sinnott2005',
+  'asmeVIII1',
+  'fritschCarlson1980',
+  'commonPractice',
+])
+
 /** Inlet solute mole fraction above which 'auto' uses stage-by-stage (common practice). */
 export const CONCENTRATED_GAS_LIMIT = 0.05
 const MAX_STAGES = 2000
@@ -440,6 +460,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
   const checks: CheckResult[] = [
     {
       key: 'flooding',
+      source: 'Fair flooding correlation (fair1961 via treybal1980 / benitez2009); 85 % limit: commonPractice',
       label: 'Percent of flood',
       status: fracFlood < 0.85 ? 'pass' : fracFlood < 1 ? 'warn' : 'fail',
       value: 100 * fracFlood,
@@ -449,6 +470,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     },
     {
       key: 'pressureDropPerTray',
+      source: 'dry tray (Liebson orifice fit) + clear liquid (bennett1983) + residual head, benitez2009 ch. 4; 1000 Pa limit: commonPractice',
       label: 'Pressure drop per tray',
       status: dPtray <= 1000 ? 'pass' : dPtray <= 1500 ? 'warn' : 'fail',
       value: dPtray,
@@ -458,6 +480,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     },
     {
       key: 'weeping',
+      source: 'hole Froude number >= 0.5, benitez2009 ch. 4 (Illus. 4.8)',
       label: 'Weeping (hole Froude number)',
       status: Fr >= WEEP_FROUDE_LIMIT ? 'pass' : Fr >= 0.8 * WEEP_FROUDE_LIMIT ? 'warn' : 'fail',
       value: Fr,
@@ -467,6 +490,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     },
     {
       key: 'entrainment',
+      source: 'fractional entrainment from benitez2009 eqs 4.45-4.47; 0.10 limit: commonPractice',
       label: 'Fractional entrainment',
       status: psi <= 0.1 ? 'pass' : psi <= 0.15 ? 'warn' : 'fail',
       value: psi,
@@ -476,6 +500,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     },
     {
       key: 'turndown',
+      source: 'hole Froude number >= 0.5 (benitez2009) at the turndown gas rate; turndown fraction: commonPractice',
       label: `Weeping at turndown (${Math.round(100 * tdf)} % of design gas)`,
       status: hTurn.Fr >= WEEP_FROUDE_LIMIT ? 'pass' : 'warn',
       value: hTurn.Fr,
@@ -485,6 +510,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     },
     {
       key: 'downcomerBackup',
+      source: 'backup = weir + crest (Francis, sinnott2005) + tray head + apron loss (treybal1980); limit (t + hw)/2, sinnott2005',
       label: 'Downcomer backup',
       status: backupRatio <= 0.9 ? 'pass' : backupRatio <= 1 ? 'warn' : 'fail',
       value: hB.backup,
@@ -494,6 +520,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     },
     {
       key: 'downcomerResidence',
+      source: 'residence = A_d h_backup / q_L, sinnott2005; >= 3 s: commonPractice',
       label: 'Downcomer residence time',
       status: residence >= 3 ? 'pass' : residence >= 2 ? 'warn' : 'fail',
       value: residence,
@@ -600,6 +627,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     detail: wantDetail
       ? {
           units: 'SI (molar flows in detail: mol/s)',
+          references: DESIGN_REFERENCES,
           equilibrium: { model: c.equilibrium.model, temperature: T, pressure: P, K0: eqb.K0, Ktop, Kbottom: Kbot, xStarBottom: xStarN, parameters: eqb.info },
           balances: {
             method,

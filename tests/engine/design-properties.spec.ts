@@ -7,7 +7,7 @@ import { caseToSI, evaluateCase, InfeasibleDesignError, InvalidInputError } from
 import { designSI } from '../../server/engine/design.ts'
 import type { DesignResult } from '../../server/engine/contract.ts'
 
-const RUNS = 1000
+const RUNS = Number(process.env.FC_RUNS ?? 1000)
 
 const caseArb = fc.record({
   flow: fc.double({ min: 5, max: 5000, noNaN: true }),
@@ -63,7 +63,7 @@ describe('properties over random valid cases', () => {
           const r = evaluateCase(toCase(p))
           expect(allFinite(r)).toBe(true)
           expect(r.summary.actualTrays).toBeGreaterThanOrEqual(1)
-          expect(r.summary.selectedDiameter).toBeGreaterThanOrEqual(r.summary.diameter)
+          expect(r.summary.selectedDiameter).toBeGreaterThanOrEqual(r.summary.diameter * (1 - 1e-9))
           expect(r.summary.outletGasSoluteMoleFraction).toBeLessThan(p.y)
           feasible++
         } catch (e) {

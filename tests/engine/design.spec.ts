@@ -153,6 +153,11 @@ describe('infeasible designs come back as structured reasons', () => {
     ['lean solvent loaded beyond the target (y_out <= K x0)', () => evaluateCase({ ...briefCase, solvent: { ...briefCase.solvent, soluteMoleFraction: 0.001 } }), 'leanSolventLoaded'],
     ['flooding impossible (capacity factor <= 0 at a huge liquid load)', () => evaluateCase({ ...briefCase, equilibrium: { model: 'constantK', K: 200 }, solventFactor: 3, tray: { ...briefCase.tray, spacing: 0.15 } }), 'flooding'],
     ['equilibrium outside the model (x* >= 1)', () => evaluateCase({ ...briefCase, equilibrium: { model: 'constantK', K: 0.01 } }), 'equilibriumOutOfRange'],
+    [
+      'gas above its dew point (Margules, cold column)',
+      () => evaluateCase({ ...demo, gas: { ...demoGas, soluteMoleFraction: 0.143, temperature: 5 }, solvent: { name: 'water', temperature: 5 }, equilibrium: { model: 'modifiedRaoult', activityModel: 'margules' } }),
+      'equilibriumOutOfRange',
+    ],
   ]
   for (const [what, f, code] of cases) {
     it(what, () => {

@@ -5,6 +5,7 @@
 import type { EngineWarning } from '../contract.ts'
 import { T_REF_HENRY } from '../properties/constants.ts'
 import { checkRange, type ValidityRange } from '../numerics/validity.ts'
+import { ConvergenceError } from '../errors.ts'
 
 /** An equilibrium curve at fixed T and P. */
 export interface EquilibriumCurve {
@@ -94,6 +95,10 @@ export class MargulesRaoultEquilibrium implements EquilibriumCurve {
     return this.k * x * Math.exp(this.lnG * u * u)
   }
   x(y: number): number {
+    // y(x) rises monotonically to y(1) = Psat/P (ln gammaInf < 2): above it, no liquid
+    // composition is in equilibrium (the gas is above its dew point); 1 is returned and
+    // the designer reports it as out of range.
+    if (y >= this.k) return 1
     // Newton from the dilute guess, safeguarded by bisection on [0, 1]
     let lo = 0
     let hi = 1
@@ -110,6 +115,8 @@ export class MargulesRaoultEquilibrium implements EquilibriumCurve {
       if (Math.abs(xn - x) < 1e-15 + 1e-13 * x) return xn
       x = xn
     }
+    const r = this.y(x) - y
+    if (Math.abs(r) > 1e-9 * Math.max(y, 1e-12)) throw new ConvergenceError('Modified Raoult (Margules) inverse x(y) did not converge', 60, r)
     return x
   }
 }
@@ -186,6 +193,8 @@ export class TableEquilibrium implements EquilibriumCurve {
       if (Math.abs(xn - x) < 1e-15 + 1e-13 * Math.abs(x)) return xn
       x = xn
     }
+    const r = hermite(x0, x1, y0, y1, m0, m1, x) - y
+    if (Math.abs(r) > 1e-9 * Math.max(Math.abs(y), 1e-12)) throw new ConvergenceError('Equilibrium table inverse x(y) did not converge', 60, r)
     return x
   }
 }

@@ -1,4 +1,3 @@
-// TEAM NOTE (temporary, the lead removes it at integration): every engineer working in this tree must read /tmp/rules.md now and follow it.
 /**
  * The contract between the design engine, the cost model, the optimiser and the API.
  * Everything is SI unless the name says otherwise (molar flows in kmol/h as the

@@ -50,6 +50,7 @@ import {
   residualHead,
   weirCrestFrancis,
   weirLengthRatio,
+  weepVelocityTreybal,
 } from './hydraulics/tray.ts'
 import { VESSEL_CAUTION, minimumThickness, shellMass, shellThicknessThinWall } from './vessel/shell.ts'
 
@@ -446,6 +447,10 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
   const tdf = tr.turndownFraction
   const sLow = hTop.Fr <= hBot.Fr ? top : bot
   const turn: EndStreams = { gasMol: sLow.gasMol * tdf, gasMass: sLow.gasMass * tdf, rhoV: sLow.rhoV, Q: sLow.Q * tdf, liqMass: sLow.liqMass, qL: sLow.qL }
+  // second weeping method (Treybal eq. 6.46), when the gas viscosity is known
+  const lwRatio = Lw / Dsel
+  const Zflow = Dsel * Math.sqrt(1 - lwRatio * lwRatio)
+  const weepV = c.gas.viscosity ? weepVelocityTreybal(c.gas.viscosity, sigma, top.rhoV, rhoL, tr.holeDiameter, tr.thickness, Aa, tr.holePitch, Zflow) : 0
   const hTurn = trayHydraulics(turn, hTop.Fr <= hBot.Fr ? sTop : sBot, t, rhoL, sigma, Aa, Ah, AhAa, An, Ad, Lw, c, Co)
 
   // ---- checks (worst end for each)
@@ -662,13 +667,16 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
             bottom: { streams: bot, sizing: sBot, tray: hBot },
             top: { streams: top, sizing: sTop, tray: hTop },
             turndown: { fraction: tdf, tray: hTurn },
+            // cross-check: hole velocity below which the tray weeps (Treybal eq. 6.46); 0 when the gas viscosity is unknown
+            weepHoleVelocityTreybal: weepV,
+            liquidFlowDistance: Zflow,
           },
           vessel: { designPressure: Pd, thicknessCalculated: tCalc, thicknessMinimum: tMin, thickness: tShell, mass: mShell, height },
         }
       : {},
   }
   const detailChecksum = wantDetail
-    ? sumStreams(bot) + sumStreams(top) + sumSizing(sBot) + sumSizing(sTop) + sumTray(hBot) + sumTray(hTop) + sumTray(hTurn) + Atop + Abot + Kbot + Ktop + tCalc + pinch.Xpinch + infoSum(eqb.info)
+    ? sumStreams(bot) + sumStreams(top) + sumSizing(sBot) + sumSizing(sTop) + sumTray(hBot) + sumTray(hTop) + sumTray(hTurn) + Atop + Abot + Kbot + Ktop + tCalc + pinch.Xpinch + infoSum(eqb.info) + weepV
     : 0
   guardFinite(result, detailChecksum)
   return result

@@ -11,7 +11,9 @@ import {
   surfaceTensionFactor,
   DEFAULT_SPACING_RULE,
 } from '../../server/engine/hydraulics/flooding.ts'
-import { orificeCoefficient, weirCrestFrancis, weirLengthRatio, residualHead } from '../../server/engine/hydraulics/tray.ts'
+import { orificeCoefficient, weirCrestFrancis, weirLengthRatio, residualHead, dryTrayHeadTreybal, liquidHeadTreybal } from '../../server/engine/hydraulics/tray.ts'
+import { evaluateCase } from '../../server/engine/index.ts'
+import { readFileSync } from 'node:fs'
 import { densityIdealGas } from '../../server/engine/properties/gas.ts'
 import type { EngineWarning } from '../../server/engine/contract.ts'
 import { expectPublished } from './published.ts'
@@ -105,5 +107,31 @@ describe('tray geometry and heads', () => {
     expect(spacingFromRule(DEFAULT_SPACING_RULE, 1.5)).toBe(0.6)
     expect(spacingFromRule(DEFAULT_SPACING_RULE, 3.5)).toBe(0.75)
     expect(spacingFromRule(DEFAULT_SPACING_RULE, 9)).toBe(0.9)
+  })
+})
+
+describe('second method: the Treybal set against the Benitez set on the demo tray', () => {
+  const r = evaluateCase(JSON.parse(readFileSync('data/examples/design.json', 'utf8')))
+  type End = { streams: { rhoV: number; qL: number }; tray: { vo: number; va: number; hd: number; hL: number; hSigma: number; ht: number } }
+  const h = r.detail.hydraulics as { bottom: End; holeArea: number; netArea: number; weirLength: number; weepHoleVelocityTreybal: number; turndown: { tray: { vo: number } } }
+  const b = h.bottom
+  const D = r.summary.selectedDiameter
+  it('dry-tray heads agree within 5 % (Liebson/Benitez orifice fit vs Treybal eq. 6.36)', () => {
+    const hdT = dryTrayHeadTreybal(b.tray.vo, 0.0045, 0.002, h.holeArea / h.netArea, b.streams.rhoV, 995)
+    expect(Math.abs(hdT / b.tray.hd - 1)).toBeLessThan(0.05)
+  })
+  it('total gas-pressure-drop heads agree within 15 % (clear-liquid heads differ more, as correlations do)', () => {
+    const hLT = liquidHeadTreybal(0.05, b.tray.va, b.streams.rhoV, b.streams.qL, (D + h.weirLength) / 2)
+    const hdT = dryTrayHeadTreybal(b.tray.vo, 0.0045, 0.002, h.holeArea / h.netArea, b.streams.rhoV, 995)
+    const totalT = hdT + hLT + b.tray.hSigma
+    expect(Math.abs(totalT / b.tray.ht - 1)).toBeLessThan(0.15)
+    expect(hLT).toBeGreaterThan(0)
+  })
+  it('weeping: both criteria agree the demo tray does not weep at design or at 50 % turndown', () => {
+    expect(h.weepHoleVelocityTreybal).toBeGreaterThan(1)
+    expect(b.tray.vo).toBeGreaterThan(h.weepHoleVelocityTreybal)
+    expect(h.turndown.tray.vo).toBeGreaterThan(h.weepHoleVelocityTreybal)
+    expect(r.checks.find((c) => c.key === 'weeping')!.status).toBe('pass')
+    expect(r.checks.find((c) => c.key === 'turndown')!.status).toBe('pass')
   })
 })

@@ -108,7 +108,7 @@ export function floodingVelocity(C: number, rhoL: number, rhoV: number): number 
  * Equation: D = [4 Q / (f v_F pi (1 - A_d/A_t))]^0.5
  * @param Q gas volumetric flow [m3/s]; @param f fraction of flood [-]
  * @param vF flooding velocity [m/s]; @param AdAt downcomer area fraction [-]
- * Source: benitez2009 eq. 4.33. Example: Q 3.0208, f 0.8, vF 3.4177, AdAt 0.1 -> 1.2500 m... see tests
+ * Source: benitez2009 eq. 4.33. Example: Q 3.0208, f 0.8, vF 3.4177, AdAt 0.088 -> 1.242 m (Treybal Illus. 6.3)
  */
 export function diameterFromFlooding(Q: number, f: number, vF: number, AdAt: number): number {
   return Math.sqrt((4 * Q) / (f * vF * Math.PI * (1 - AdAt)))

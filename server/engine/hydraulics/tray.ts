@@ -24,7 +24,7 @@ export const orificeCoefficientValidity: ValidityRange = { arg: 'd_o/l', min: 1,
  * SI form used: h_d[m] = (v_o/C_o)^2 rho_V / (2 g rho_L) (1 - (A_h/A_a)^2)   (0.0051 ~ 100/(2 g 1000))
  * @param vo hole velocity [m/s]; @param Co orifice coefficient [-]
  * @param rhoV, rhoL densities [kg/m3]; @param AhAa hole/active area [-]
- * Source: benitez2009 ch. 4 (Illus. 4.7). Example: vo 10, Co 0.75, rhoV 1.2, rhoL 1000, AhAa 0.1 -> 0.010764 m
+ * Source: benitez2009 ch. 4 (Illus. 4.7). Example: vo 10, Co 0.75, rhoV 1.2, rhoL 1000, AhAa 0.1 -> 0.010768 m
  */
 export function dryTrayHead(vo: number, Co: number, rhoV: number, rhoL: number, AhAa: number): number {
   const r = vo / Co
@@ -45,7 +45,7 @@ export function frothDensity(Ks: number): number {
  * Equation: h_L = phi_e [h_w + C (q_L/(L_w phi_e))^(2/3)], C = 0.5012 + 0.4389 exp(-137.8 h_w)  (SI, m)
  *   (published in cm: C_l = 50.12 + 43.89 exp(-1.378 h_w[cm]))
  * @param phiE froth density [-]; @param hw weir height [m]; @param qL liquid flow [m3/s]; @param Lw weir length [m]
- * Source: bennett1983 via benitez2009 ch. 4. Example: phi 0.5, hw 0.05, q 0.005, Lw 1 -> 0.03680 m
+ * Source: bennett1983 via benitez2009 ch. 4. Example: phi 0.5, hw 0.05, q 0.005, Lw 1 -> 0.03664 m
  */
 export function clearLiquidHeight(phiE: number, hw: number, qL: number, Lw: number): number {
   const C = 0.5012 + 0.4389 * Math.exp(-137.8 * hw)
@@ -54,7 +54,7 @@ export function clearLiquidHeight(phiE: number, hw: number, qL: number, Lw: numb
 
 /**
  * Residual (surface-tension) head. Equation: h_sigma = 6 sigma/(g rho_L d_o)
- * Source: benitez2009 ch. 4. Example: sigma 0.07, rhoL 995, do 4.5 mm -> 0.009564 m
+ * Source: benitez2009 ch. 4. Example: sigma 0.07, rhoL 995, do 4.5 mm -> 0.009565 m
  */
 export function residualHead(sigma: number, rhoL: number, dO: number): number {
   return (6 * sigma) / (G_ACC * rhoL * dO)
@@ -63,7 +63,7 @@ export function residualHead(sigma: number, rhoL: number, dO: number): number {
 /**
  * Weeping criterion (hole Froude number).
  * Equation: Fr_h = [rho_V v_o^2 / (rho_L g h_L)]^0.5; Fr_h >= 0.5: weeping not significant
- * Source: benitez2009 ch. 4 (Illus. 4.8). Example: rhoV 1.8, vo 12, rhoL 995, hL 0.03 -> 2.94
+ * Source: benitez2009 ch. 4 (Illus. 4.8). Example: rhoV 1.8, vo 12, rhoL 995, hL 0.03 -> 0.941
  */
 export function holeFroudeNumber(rhoV: number, vo: number, rhoL: number, hL: number): number {
   return Math.sqrt((rhoV * vo * vo) / (rhoL * G_ACC * hL))
@@ -106,7 +106,7 @@ export function downcomerEntranceLoss(qL: number, Ada: number): number {
 
 /**
  * Segmental downcomer geometry: chord angle theta from A_d/A_t = (theta - sin theta)/(2 pi),
- * weir length L_w = D sin(theta/2). Source: benitez2009 ch. 4. Example: A_d/A_t = 0.1 -> L_w/D = 0.7267
+ * weir length L_w = D sin(theta/2). Source: benitez2009 ch. 4. Example: A_d/A_t = 0.1 -> L_w/D = 0.7266
  */
 export function weirLengthRatio(AdAt: number): number {
   // Newton on f(theta) = theta - sin(theta) - 2 pi AdAt
@@ -120,4 +120,50 @@ export function weirLengthRatio(AdAt: number): number {
     if (Math.abs(step) < 1e-13) break
   }
   return Math.sin(th / 2)
+}
+
+// ---------------------------------------------------------------- Treybal set (second method)
+
+/**
+ * Dry-tray head, Treybal's form (second method, used as a cross-check).
+ * Equation: 2 h_D g rho_L/(V_o^2 rho_G) = C_o [0.40 (1.25 - A_o/A_n) + 4 l f/d_o + (1 - A_o/A_n)^2],
+ *   C_o = 1.09 (d_o/l)^0.25, Fanning f = 0.008
+ * @param vo hole velocity [m/s]; @param dO hole diameter [m]; @param l plate thickness [m]
+ * @param AoAn hole area / net area [-]; @param rhoV, rhoL densities [kg/m3]
+ * @returns h_D [m of liquid]
+ * Validity: d_o/l about 1-4 (Treybal ch. 6).
+ * Source: treybal1980 ch. 6 (Illus. 6.3). Example: vo 15, do 4.5 mm, l 2 mm, AoAn 0.113, rhoV 2, rhoL 995 -> 0.0386 m
+ */
+export function dryTrayHeadTreybal(vo: number, dO: number, l: number, AoAn: number, rhoV: number, rhoL: number): number {
+  const Co = 1.09 * Math.pow(dO / l, 0.25)
+  const u = 1 - AoAn
+  return ((Co * (0.4 * (1.25 - AoAn) + (4 * l * 0.008) / dO + u * u)) * vo * vo * rhoV) / (2 * G_ACC * rhoL)
+}
+
+/**
+ * Liquid head on the tray, Treybal's form (second method).
+ * Equation: h_L = 6.10e-3 + 0.725 h_w - 0.238 h_w V_a rho_G^0.5 + 1.225 q/z  [m], z = (D + W)/2
+ * @param hw weir height [m]; @param va active-area gas velocity [m/s]; @param rhoV [kg/m3]
+ * @param qL liquid flow [m3/s]; @param z average flow width [m]
+ * Source: treybal1980 ch. 6 (Illus. 6.3).
+ */
+export function liquidHeadTreybal(hw: number, va: number, rhoV: number, qL: number, z: number): number {
+  return 6.1e-3 + 0.725 * hw - 0.238 * hw * va * Math.sqrt(rhoV) + (1.225 * qL) / z
+}
+
+/**
+ * Minimum hole velocity before weeping (Treybal eq. 6.46).
+ * Equation: V_ow mu_G/sigma = 0.0229 [(mu_G^2/(sigma rho_G d_o)) (rho_L/rho_G)]^0.379 (l/d_o)^0.293
+ *             [2 A_a d_o/(sqrt(3) p^3)]^(2.8/(Z/d_o)^0.724),  Z = 2 x (weir distance from the centre)
+ * @param muV gas viscosity [Pa s]; @param sigma [N/m]; @param rhoV, rhoL [kg/m3]
+ * @param dO hole diameter [m]; @param l plate thickness [m]; @param Aa active area [m2]
+ * @param p hole pitch [m]; @param Z liquid flow distance [m]
+ * @returns V_ow [m/s], hole velocity below which the tray weeps
+ * Source: treybal1980 eq. 6.46. Example: CO2 1.5e-5, 0.07, 2, 995, 4.5 mm, 2 mm, 1.32 m2, 12 mm, 1.0 m -> about 5.3 m/s
+ */
+export function weepVelocityTreybal(muV: number, sigma: number, rhoV: number, rhoL: number, dO: number, l: number, Aa: number, p: number, Z: number): number {
+  const g1 = Math.pow(((muV * muV) / (sigma * rhoV * dO)) * (rhoL / rhoV), 0.379)
+  const g2 = Math.pow(l / dO, 0.293)
+  const g3 = Math.pow((2 * Aa * dO) / (Math.sqrt(3) * p * p * p), 2.8 / Math.pow(Z / dO, 0.724))
+  return (0.0229 * g1 * g2 * g3 * sigma) / muV
 }

@@ -13,7 +13,7 @@ import { R_GAS } from './constants.ts'
  * @returns density [kg/m3]
  * Validity: ideal gas; low pressure (say below 1 MPa for CO2, N2, air near ambient).
  * Source: codata2018 (R, exact).
- * Example: densityIdealGas(101325, 0.04401, 298.15) = 1.79895 kg/m3
+ * Example: densityIdealGas(101325, 0.04401, 298.15) = 1.79887 kg/m3
  */
 export function densityIdealGas(P: number, M: number, T: number): number {
   return (P * M) / (R_GAS * T)

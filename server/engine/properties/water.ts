@@ -32,7 +32,7 @@ export const surfaceTensionWaterValidity: ValidityRange = { arg: 'T', min: 248.1
  * Validity: 0-150 degC (at saturation pressure above 100 degC).
  * Source: kell1975 (constants from memory; checked in tests against IAPWS-95:
  *   998.207 (20 C), 997.047 (25 C), 995.65 (30 C) kg/m3).
- * Example: densityWater(298.15) = 997.04 kg/m3
+ * Example: densityWater(298.15) = 997.045 kg/m3
  */
 export function densityWater(T: number, warnings?: EngineWarning[], path?: string): number {
   checkRange(warnings, 'Water density (Kell 1975)', densityWaterValidity, T, path)
@@ -52,7 +52,7 @@ export const densityWaterValidity: ValidityRange = { arg: 'T', min: 273.15, max:
  * Validity: 0-100 degC for better than about 0.5 % (wider with larger error).
  * Source: waterViscosityVogel (from memory); checked in tests against IAPWS 2008:
  *   0.89002 mPa s (25 C), 1.0016 (20 C), 0.797 (30 C).
- * Example: viscosityWater(298.15) = 8.903e-4 Pa s
+ * Example: viscosityWater(298.15) = 8.904e-4 Pa s
  */
 export function viscosityWater(T: number, warnings?: EngineWarning[], path?: string): number {
   checkRange(warnings, 'Water viscosity (Vogel fit)', viscosityWaterValidity, T, path)

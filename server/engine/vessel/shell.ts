@@ -42,7 +42,7 @@ export function minimumThickness(rule: readonly MinThicknessRow[], D: number): n
  * Equation: m = rho t [pi D_m L + 2 (1.084 D_m^2)], D_m = D + t (mean diameter);
  *   1.084 D^2 is the surface area of a 2:1 elliptical head (from memory; common practice).
  * @param D inside diameter [m]; @param L tangent-to-tangent length [m]; @param t wall [m]; @param rho steel density [kg/m3]
- * Source: commonPractice. Example: D 1.2, L 12, t 0.006, rho 7850 -> 2,249 kg
+ * Source: commonPractice. Example: D 1.2, L 12, t 0.006, rho 7850 -> 2,290 kg
  */
 export function shellMass(D: number, L: number, t: number, rho: number): number {
   const Dm = D + t

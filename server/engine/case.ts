@@ -38,6 +38,7 @@ export interface LibraryComponent {
   gammaInfWater?: LibraryValue
   gasViscosity?: LibraryValue
   liquidCorrelations?: LibraryValue<string>
+  notes?: LibraryValue<string>
   hazards?: { flags: string[]; source: string }
 }
 export interface ComponentLibrary {

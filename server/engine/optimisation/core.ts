@@ -25,9 +25,11 @@
  *   1. coarse grid, 5 (u) x 4 (L/Lmin) x 3 (flood) for every tray spacing;
  *   2. pattern search (compass moves with expansion, diagonal moves in (u, L/Lmin), neighbour
  *      moves on the spacing, step halving; after Hooke and Jeeves 1961, key hookeJeeves1961) from
- *      the best grid point of each of the best tray counts and of each spacing (4 starts);
+ *      the best grid point of each of the two best tray counts and of the two best spacings;
  *   3. ridge search on the best point's tray count and its two neighbours: along L/Lmin, recovery
- *      at the cell edge, minimised by a 5-point scan and golden-section refinement;
+ *      at the cell edge, minimised by a 5-point scan and golden-section refinement; then a
+ *      transfer to every other spacing (same tray counts, recovery at the cell edge, highest
+ *      feasible fraction of flood), with its own ridge search when that is cheaper;
  *   4. a fine pattern search and a bisection polish that pushes each variable to its cell edge
  *      and hops into the next cell when that is cheaper (e.g. a higher fraction of flood giving
  *      the next smaller diameter).
@@ -532,20 +534,20 @@ export function searchOptimum(ev: Evaluator, basis: CostBasisData, opts: { grid?
     )
   }
   cand.sort((a, b) => a.tac - b.tac)
-  // starts: the TAC surface is multimodal across tray-count cells, so start from the best grid
-  // point of each tray count (best counts first), then the best point of each spacing
+  // starts: the TAC surface is multimodal across tray-count cells and spacings, so start from
+  // the best grid point of each of the two best tray counts and of the two best spacings
   const starts: X[] = []
-  const nStarts = opts.starts ?? 4
+  const nByTrays = opts.starts ?? 2
   const seenTrays = new Set<number>()
   for (const c of cand) {
     if (seenTrays.has(c.trays)) continue
     seenTrays.add(c.trays)
     starts.push(c.x)
-    if (starts.length >= nStarts - 2) break
+    if (starts.length >= nByTrays) break
   }
   const seenT = new Set<number>()
   for (const c of cand) {
-    if (starts.length >= nStarts) break
+    if (seenT.size >= 2) break
     if (seenT.has(c.x.t)) continue
     seenT.add(c.x.t)
     if (!starts.includes(c.x)) starts.push(c.x)
@@ -566,18 +568,72 @@ export function searchOptimum(ev: Evaluator, basis: CostBasisData, opts: { grid?
  * to what the trays give), then a fine pattern search and the cell-edge polish.
  */
 function refine(ev: Evaluator, basis: CostBasisData, box: Box, start: { x: X; tac: number }): { x: X; tac: number } {
-  let best = start
-  const d0 = ev.designAt(best.x)
-  if (typeof d0 !== 'string') {
-    const n0 = d0.summary.actualTrays
-    for (const n of [n0, n0 + 1, n0 - 1]) {
-      if (n < 1) continue
-      const r = ridgeSearch(ev, basis, box, best.x, n)
-      if (r && r.tac < best.tac) best = r
-    }
-  }
+  let best = ridgesAround(ev, basis, box, start)
+  // the other spacings: the same tray count (and its neighbours) with the recovery at the cell
+  // edge and the highest feasible fraction of flood there; a better one gets its own ridges
+  const moved = spacingTransfer(ev, basis, box, best)
+  if (moved.tac < best.tac) best = ridgesAround(ev, basis, box, moved)
   const fin = patternSearch(ev, basis, box, best.x, 1 / 64, 1 / 1024)
   return polishEdges(ev, basis, box, fin.x, 4)
+}
+
+function ridgesAround(ev: Evaluator, basis: CostBasisData, box: Box, start: { x: X; tac: number }): { x: X; tac: number } {
+  let best = start
+  const d0 = ev.designAt(best.x)
+  if (typeof d0 === 'string') return best
+  const n0 = d0.summary.actualTrays
+  for (const n of [n0, n0 + 1, n0 - 1]) {
+    if (n < 1) continue
+    const r = ridgeSearch(ev, basis, box, best.x, n)
+    if (r && r.tac < best.tac) best = r
+  }
+  return best
+}
+
+function spacingTransfer(ev: Evaluator, basis: CostBasisData, box: Box, start: { x: X; tac: number }): { x: X; tac: number } {
+  let best = start
+  const d0 = ev.designAt(start.x)
+  if (typeof d0 === 'string') return best
+  const n0 = d0.summary.actualTrays
+  for (let t = 0; t < ev.spacings.length; t++) {
+    if (t === start.x.t) continue
+    const y = highestFeasibleFloodAnywhere(ev, box, { ...start.x, t })
+    if (!y) continue
+    for (const n of [n0, n0 + 1, n0 - 1]) {
+      if (n < 1) continue
+      const u = edgeU(ev, y, n, box)
+      if (u === null) continue
+      const z = highestFeasibleFloodAnywhere(ev, box, { ...y, u }) ?? { ...y, u }
+      const tz = ev.tac(z, basis)
+      if (tz < best.tac) best = { x: z, tac: tz }
+    }
+  }
+  return best
+}
+
+/**
+ * The highest feasible fraction of flood at these other variables (bisection to 0.2 % of the
+ * range), searching up from x.f when x is feasible, else between the lower bound and x.f.
+ */
+function highestFeasibleFloodAnywhere(ev: Evaluator, box: Box, x: X): X | null {
+  const ok = (f: number) => typeof ev.designAt({ ...x, f }) !== 'string'
+  let a: number
+  let b: number
+  if (ok(x.f)) {
+    if (ok(box.f[1])) return { ...x, f: box.f[1] }
+    a = x.f
+    b = box.f[1]
+  } else {
+    if (!ok(box.f[0])) return null
+    a = box.f[0]
+    b = x.f
+  }
+  while (b - a > 2e-3 * (box.f[1] - box.f[0])) {
+    const m = (a + b) / 2
+    if (ok(m)) a = m
+    else b = m
+  }
+  return { ...x, f: a }
 }
 
 /** TAC vs one variable, the others held at the optimum. */

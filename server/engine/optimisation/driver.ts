@@ -50,7 +50,7 @@ export function recoveryBounds(search: SearchSpec, soluteIn: number): [number, n
 export interface OptimiseOptions {
   /** Coarse grid points in (recovery, solvent factor, fraction of flood); default [5, 4, 3]. */
   grid?: [number, number, number]
-  /** Pattern-search starts from the best grid points; default 4. */
+  /** Pattern-search starts from the best tray counts of the grid (plus one per spacing); default 2. */
   starts?: number
 }
 

@@ -191,6 +191,8 @@ export interface StudyPermissions {
 }
 
 export interface StudyView extends StudyRow {
+  recommendedOptionId?: number | null
+  parentStudyId?: number | null
   inputs: CaseInput
   search?: Record<string, unknown> | null
   runs: RunRow[]

@@ -34,7 +34,7 @@ const routes: NamedRoute[] = [
   { path: '/', name: 'home', redirect: () => ({ name: 'portfolio' }) },
   { path: '/portfolio', name: 'portfolio', component: () => import('@/views/PortfolioView.vue'), meta: { title: 'Portfolio' } },
   {
-    path: '/sites/:siteId(\\d+)/studies/:studyId(\\d+)/:section(streams|column|checks|economics|options)?',
+    path: '/sites/:siteId(\\d+)/studies/:studyId(\\d+)/:section(streams|column|checks|economics|options|review)?',
     name: 'study',
     component: () => import('@/views/StudyWorkspaceView.vue'),
     meta: { title: 'Study' },

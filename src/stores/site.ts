@@ -32,7 +32,7 @@ export const useSiteStore = defineStore('site', () => {
     return session.roleAt(currentId.value) ?? current.value?.role ?? null
   })
 
-  const canEditStudies = computed(() => role.value === 'engineer' || role.value === 'admin')
+  const canEditStudies = computed(() => role.value === 'engineer')
   const canEditCostBasis = computed(() => role.value === 'economist' || role.value === 'admin')
 
   async function load(force = false): Promise<void> {

@@ -1,0 +1,42 @@
+/** Review of a study (submit, approve, return, revise), its comment thread and site notifications. */
+import type { ReviewEventView } from '@shared/schemas/review.ts'
+import { http } from './http.ts'
+import type { StudyView } from './types.ts'
+
+export type { ReviewEventView }
+
+export interface NotificationChange {
+  at: string
+  what: string
+  kind: string
+}
+
+export interface StudyNotification {
+  studyId: number
+  name: string
+  status: string
+  lastSeenAt: string | null
+  changes: NotificationChange[]
+}
+
+const study = (siteId: number, studyId: number) => `/sites/${siteId}/studies/${studyId}`
+
+export const reviewApi = {
+  submit: (siteId: number, studyId: number, body: { recommendedOptionId: number; comment: string }): Promise<StudyView> =>
+    http.post(`${study(siteId, studyId)}/submit`, body),
+  approve: (siteId: number, studyId: number, body: { comment: string }): Promise<StudyView> =>
+    http.post(`${study(siteId, studyId)}/approve`, body),
+  returnStudy: (siteId: number, studyId: number, body: { comment: string }): Promise<StudyView> =>
+    http.post(`${study(siteId, studyId)}/return`, body),
+  revise: (siteId: number, studyId: number): Promise<StudyView> => http.post(`${study(siteId, studyId)}/revise`, {}),
+  thread: (siteId: number, studyId: number): Promise<ReviewEventView[]> => http.get(`${study(siteId, studyId)}/comments`),
+  comment: (siteId: number, studyId: number, body: string): Promise<ReviewEventView[]> =>
+    http.post(`${study(siteId, studyId)}/comments`, { body }),
+  notifications: (siteId: number): Promise<StudyNotification[]> => http.get(`/sites/${siteId}/notifications`),
+}
+
+/** Links to the study's printable report and spreadsheet, for plain anchors (the browser downloads them). */
+export function reportLinks(siteId: number, studyId: number): { pdf: string; xlsx: string } {
+  const base = `/api/v1${study(siteId, studyId)}`
+  return { pdf: `${base}/report.pdf`, xlsx: `${base}/export.xlsx` }
+}

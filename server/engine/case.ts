@@ -425,6 +425,9 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
   const v = input.vessel ?? {}
   const V = CASE_DEFAULTS.vessel
   const opGauge = Math.max(P - 101325, 0)
+  if (P < 101325) {
+    c.warnings.push({ code: 'vacuum', message: 'The column runs below atmospheric pressure: the shell must also be checked for external pressure (vacuum), which the preliminary estimate does not cover', path: 'gas.pressure' })
+  }
   let designPressure: number
   if (v.designPressure !== undefined) {
     designPressure = c.q('pressureGauge', v.designPressure, 'vessel.designPressure')

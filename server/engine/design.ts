@@ -396,6 +396,9 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
       Dcalc = Math.max(sBot.D, sTop.D)
       if (!Number.isFinite(Dcalc)) break
       const Dsel = roundUp(Dcalc, step)
+  // validity of the Fair correlation (Perry / Fair): holes <= 13 mm, weir < 15 % of spacing
+  if (tr.holeDiameter > 0.013) warnings.push({ code: 'outsideValidity', message: `Fair flooding correlation: hole diameter ${(tr.holeDiameter * 1000).toFixed(1)} mm above its 13 mm limit`, path: 'tray.holeDiameter' })
+  if (tr.weirHeight > 0.15 * t) warnings.push({ code: 'outsideValidity', message: `Fair flooding correlation: weir height ${(tr.weirHeight * 1000).toFixed(0)} mm above 15 % of the tray spacing`, path: 'tray.weirHeight' })
       const tNew = spacingFromRule(rule, Dsel)
       if (tNew === t) break
       if (tNew === tPrev || spacingIterations >= 20) {

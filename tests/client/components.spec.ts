@@ -1,0 +1,101 @@
+/**
+ * Component behaviour: the percentage field, the tray-check table in US customary units and the
+ * cost-basis form's marking of fields that differ from the published version.
+ * Unit factors: NIST SP 811 (2008), Appendix B.8 — 1 in = 0.0254 m (exact);
+ * inch of water (conventional) = 2.490 889 E+02 Pa.
+ */
+import { beforeEach, describe, expect, it } from 'vitest'
+import { flushPromises, mount } from '@vue/test-utils'
+import { createPinia, setActivePinia, type Pinia } from 'pinia'
+import AppNumberField from '@/components/base/AppNumberField.vue'
+import StudyTrayChecks from '@/components/study/StudyTrayChecks.vue'
+import CostBasisForm from '@/components/costBasis/CostBasisForm.vue'
+import { useSessionStore } from '@/stores/session.ts'
+import { useUnitsStore } from '@/stores/units.ts'
+import { demoUser, testVuetify } from './helpers.ts'
+import type { CheckResult } from '@/api/types.ts'
+
+let pinia: Pinia
+
+beforeEach(() => {
+  pinia = createPinia()
+  setActivePinia(pinia)
+})
+
+describe('AppNumberField with a percentage scale', () => {
+  it('shows a fraction as a percentage and emits the fraction', async () => {
+    const w = mount(AppNumberField, { props: { modelValue: 0.97, label: 'Recovery', unit: '%', scale: 100 }, global: { plugins: [testVuetify()] } })
+    expect(w.find('input').element.value).toBe('97')
+    await w.find('input').setValue('95.5')
+    expect(w.emitted('update:modelValue')?.at(-1)?.[0]).toBeCloseTo(0.955, 12)
+  })
+})
+
+describe('StudyTrayChecks', () => {
+  const checks: CheckResult[] = [
+    { key: 'pressureDropPerTray', label: 'Pressure drop per tray', status: 'pass', value: 498.17782, limit: 1000, unit: 'Pa' },
+    { key: 'downcomerBackup', label: 'Downcomer backup', status: 'warn', value: 0.254, limit: 0.3, unit: 'm', advice: 'Increase the tray spacing' },
+    { key: 'entrainment', label: 'Fractional entrainment', status: 'fail', value: 0.15, limit: 0.1, unit: '-', advice: 'Lower the fraction of flood' },
+  ]
+
+  it('shows each check with its verdict and the advice only when it does not pass', async () => {
+    useSessionStore().user = demoUser()
+    await useUnitsStore().ensureLoaded()
+    const w = mount(StudyTrayChecks, { props: { checks }, global: { plugins: [pinia, testVuetify()] } })
+    await flushPromises()
+    const rows = w.findAll('tbody tr')
+    expect(rows).toHaveLength(3)
+    expect(rows[0]?.text()).toContain('Pass')
+    expect(rows[0]?.text()).not.toContain('Increase')
+    expect(rows[1]?.text()).toContain('Warn')
+    expect(rows[1]?.text()).toContain('Increase the tray spacing')
+    expect(rows[2]?.text()).toContain('Fail')
+    expect(w.text()).toContain('1 pass · 1 warn · 1 fail')
+  })
+
+  it('converts Pa to inH2O and m to in for US customary (NIST SP 811: inch of water, conventional = 249.0889 Pa; 1 in = 0.0254 m)', async () => {
+    useSessionStore().user = demoUser({ unitSystem: 'US' })
+    await useUnitsStore().ensureLoaded()
+    const w = mount(StudyTrayChecks, { props: { checks }, global: { plugins: [pinia, testVuetify()] } })
+    await flushPromises()
+    const rows = w.findAll('tbody tr')
+    const cells = (i: number) => rows[i]?.findAll('td').map((c) => c.text()) ?? []
+    expect(cells(0)[1]).toBe('2') // 498.17782 Pa / 249.08891 Pa = 2 inH2O
+    expect(cells(0)[3]).toBe('inH2O')
+    expect(cells(1)[1]).toBe('10') // 0.254 m / 0.0254 = 10 in
+    expect(cells(1)[3]).toBe('in')
+    expect(cells(2)[3]).toBe('–')
+  })
+})
+
+describe('CostBasisForm', () => {
+  const published = { name: 'Basis', general: { currency: 'USD', operatingHours: 8400 }, utilities: { electricityPrice: 0.085, solventCost: 0.25 } }
+
+  it('marks only the fields that differ from the published version, and counts them', async () => {
+    const draft = JSON.parse(JSON.stringify(published)) as typeof published
+    draft.utilities.electricityPrice = 0.102
+    const w = mount(CostBasisForm, {
+      props: { data: draft, reference: published, readonly: false, errors: {} },
+      global: { plugins: [testVuetify()] },
+    })
+    await flushPromises()
+    expect(w.find('[data-testid="changed-count"]').text()).toContain('1 field differ')
+    const changed = w.findAll('[data-changed="true"]')
+    expect(changed).toHaveLength(1)
+    expect(changed[0]?.text()).toContain('Electricity price')
+    expect(changed[0]?.text()).toContain('published value: 0.085')
+  })
+
+  it('writes an edit into the draft and reports the change', async () => {
+    const draft = JSON.parse(JSON.stringify(published)) as typeof published
+    const w = mount(CostBasisForm, {
+      props: { data: draft, reference: published, readonly: false, errors: {} },
+      global: { plugins: [testVuetify()] },
+    })
+    await flushPromises()
+    const input = w.find('[data-testid="cb-general.operatingHours"] input')
+    await input.setValue('8000')
+    expect(draft.general.operatingHours).toBe(8000)
+    expect(w.emitted('change')).toBeTruthy()
+  })
+})

@@ -327,7 +327,8 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     const Ak = Math.sqrt((L0 / (K * V1)) * (LN / (K * V)))
     N = stagesKremser(yIn, y1, K * x0, Ak)
     if (!Number.isFinite(N)) {
-      throw new InfeasibleDesignError([{ path: 'solventFactor', code: 'pinch', message: 'The target cannot be reached with this solvent rate (absorption factor too small for the recovery)' }])
+      const hint = !eq.linear || yIn > CONCENTRATED_GAS_LIMIT ? '; the Kremser equation does not hold for this concentrated or curved case: use "method": "stageByStage"' : ''
+      throw new InfeasibleDesignError([{ path: 'solventFactor', code: 'pinch', message: `The target cannot be reached with this solvent rate: the Kremser absorption factor ${Ak.toFixed(4)} is too small for the recovery${hint}` }])
     }
   } else {
     stepRes = stepStages(eq, true, Y1, X0, YIn, slope, MAX_STAGES, wantProfile ? { N: 0, steps: 0, x: [], y: [] } : null)

@@ -567,8 +567,12 @@ export function searchOptimum(ev: Evaluator, basis: CostBasisData, opts: { grid?
  * From a good point: ridge searches on its tray count and the neighbouring counts (recovery raised
  * to what the trays give), then a fine pattern search and the cell-edge polish.
  */
-function refine(ev: Evaluator, basis: CostBasisData, box: Box, start: { x: X; tac: number }): { x: X; tac: number } {
+function refine(ev: Evaluator, basis: CostBasisData, box: Box, start: { x: X; tac: number }, light = false): { x: X; tac: number } {
   let best = ridgesAround(ev, basis, box, start)
+  if (light) {
+    const fin = patternSearch(ev, basis, box, best.x, 1 / 64, 1 / 256)
+    return polishEdges(ev, basis, box, fin.x, 1)
+  }
   // the other spacings: the same tray count (and its neighbours) with the recovery at the cell
   // edge and the highest feasible fraction of flood there; a better one gets its own ridges
   const moved = spacingTransfer(ev, basis, box, best)
@@ -699,8 +703,9 @@ export const sensitivityItems: SensItem[] = [
 /**
  * Sensitivity (tornado): each cost-basis item changed by ±fraction (integer items rounded,
  * operating hours capped at 8760 h/yr, items whose base value is 0 left out), re-optimised
- * locally from the base optimum (ridge searches on the neighbouring tray counts, fine pattern
- * search, polish).
+ * locally from the base optimum (ridge searches on its tray count and the neighbouring counts,
+ * a short pattern search and one polish round; the spacing stays unless the pattern search
+ * moves it).
  */
 export function sensitivity(ev: Evaluator, basis: CostBasisData, box: Box, at: X, fraction: number): SensitivityEntry[] {
   const out: SensitivityEntry[] = []
@@ -713,7 +718,7 @@ export function sensitivity(ev: Evaluator, basis: CostBasisData, box: Box, at: X
       if (it.max !== undefined) v = Math.min(v, it.max)
       const b = structuredClone(basis)
       it.set(b, v)
-      const p = refine(ev, b, box, { x: at, tac: ev.tac(at, b) })
+      const p = refine(ev, b, box, { x: at, tac: ev.tac(at, b) }, true)
       return { value: v, tac: p.tac, recovery: toR(p.x.u), solventFactor: p.x.s }
     }
     out.push({ item: it.item, label: it.label, unit: it.unit, baseValue: base, low: side(-1), high: side(1) })

@@ -34,9 +34,3 @@ export const reviewApi = {
     http.post(`${study(siteId, studyId)}/comments`, { body }),
   notifications: (siteId: number): Promise<StudyNotification[]> => http.get(`/sites/${siteId}/notifications`),
 }
-
-/** Links to the study's printable report and spreadsheet, for plain anchors (the browser downloads them). */
-export function reportLinks(siteId: number, studyId: number): { pdf: string; xlsx: string } {
-  const base = `/api/v1${study(siteId, studyId)}`
-  return { pdf: `${base}/report.pdf`, xlsx: `${base}/export.xlsx` }
-}

@@ -12,6 +12,8 @@ export type RouteName =
   | 'compare'
   | 'cost-basis'
   | 'people'
+  | 'allocation'
+  | 'outbox'
   | 'not-allowed'
   | 'not-found'
 
@@ -34,7 +36,7 @@ const routes: NamedRoute[] = [
   { path: '/', name: 'home', redirect: () => ({ name: 'portfolio' }) },
   { path: '/portfolio', name: 'portfolio', component: () => import('@/views/PortfolioView.vue'), meta: { title: 'Portfolio' } },
   {
-    path: '/sites/:siteId(\\d+)/studies/:studyId(\\d+)/:section(streams|column|checks|economics|options|review)?',
+    path: '/sites/:siteId(\\d+)/studies/:studyId(\\d+)/:section(streams|column|checks|economics|options|review|operating)?',
     name: 'study',
     component: () => import('@/views/StudyWorkspaceView.vue'),
     meta: { title: 'Study' },
@@ -42,6 +44,8 @@ const routes: NamedRoute[] = [
   { path: '/compare', name: 'compare', component: () => import('@/views/CompareView.vue'), meta: { title: 'Compare options' } },
   { path: '/cost-basis', name: 'cost-basis', component: () => import('@/views/CostBasisView.vue'), meta: { title: 'Site cost basis' } },
   { path: '/people', name: 'people', component: () => import('@/views/PeopleSitesView.vue'), meta: { title: 'People & sites', adminOnly: true } },
+  { path: '/allocation', name: 'allocation', component: () => import('@/views/AllocationView.vue'), meta: { title: 'Solvent allocation' } },
+  { path: '/outbox', name: 'outbox', component: () => import('@/views/OutboxView.vue'), meta: { title: 'Outbox', adminOnly: true } },
   { path: '/not-allowed', name: 'not-allowed', component: () => import('@/views/NotAllowedView.vue'), meta: { title: 'Not allowed' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
 ]

@@ -2,7 +2,7 @@ import type { Router, Request } from 'express'
 import { z } from 'zod'
 import { defineRoutes, parse } from './define.ts'
 import { ForbiddenError, ValidationError } from '../errors.ts'
-import { parseCase, parseBasis, parseSearch, runDesign, runOptimise, assertFinite, libraryWith } from '../services/engine-gateway.ts'
+import { parseCase, parseBasis, parseSearch, runDesign, runOptimiseAsync, assertFinite, libraryWith } from '../services/engine-gateway.ts'
 import { siteLibrary } from '../services/runs.ts'
 import { basisInForce } from '../services/cost-bases.ts'
 import { loadPreset, hasPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
@@ -84,7 +84,7 @@ export function designRoutes(router: Router): Router {
         const ctx = await siteContext(req, body.siteId)
         const basis = resolveBasis(body.costBasis, ctx.basis, 'body.costBasis') ?? loadPreset(DEFAULT_PRESET)
         const c = parseCase(body.case, ctx.library, 'body.case')
-        const out = runOptimise(c, basis, parseSearch(body.search, 'body.search'), 'body.case')
+        const out = await runOptimiseAsync(c, basis, parseSearch(body.search, 'body.search'), 'body.case')
         assertFinite(out)
         res.status(200).json(out)
       },

@@ -6,6 +6,7 @@ import { designSI } from '../engine/design.ts'
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
 import { priceDesign } from '../engine/costing/index.ts'
 import { optimise } from '../engine/optimisation/index.ts'
+import { optimiseAsync } from './optimise-pool.ts'
 import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
 import type { DesignResult } from '../engine/contract.ts'
 import { ValidationError, InfeasibleError, AppError } from '../errors.ts'
@@ -29,11 +30,14 @@ function prefixed(prefix: string, path: string): string {
 
 /** Map an engine error to the API's error family; anything else is re-thrown. */
 export function toApiError(e: unknown, prefix: string): never {
+  // Engine paths are relative to the case, except the search settings, which sit beside it.
+  const root = prefix.replace(/\.?(case|inputs)$/, '')
+  const where = (path: string) => (path.startsWith('search') ? prefixed(root, path) : prefixed(prefix, path))
   if (e instanceof InvalidInputError) {
-    throw new ValidationError('The case is not valid.', e.issues.map((i) => ({ path: prefix ? prefixed(prefix, i.path) : i.path, message: i.message, code: i.code })))
+    throw new ValidationError('The case is not valid.', e.issues.map((i) => ({ path: where(i.path), message: i.message, code: i.code })))
   }
   if (e instanceof InfeasibleDesignError) {
-    throw new InfeasibleError('No design meets these inputs.', e.issues.map((i) => ({ path: prefix ? prefixed(prefix, i.path) : i.path, message: i.message, code: i.code })))
+    throw new InfeasibleError('No design meets these inputs.', e.issues.map((i) => ({ path: where(i.path), message: i.message, code: i.code })))
   }
   if (e instanceof NoFeasibleDesignError) {
     throw new InfeasibleError(e.message, [{ path: prefixed(prefix.replace(/\.?case$/, ''), 'search'), message: e.message, code: 'noFeasibleDesign' }])
@@ -81,6 +85,15 @@ export function runDesign(c: CaseSI, basis: CostBasisData | null, prefix = 'body
 export function runOptimise(c: CaseSI, basis: CostBasisData, search: SearchSpec, prefix = 'body.case') {
   try {
     return optimise(c, basis, search)
+  } catch (e) {
+    return toApiError(e, prefix)
+  }
+}
+
+/** The same, on a worker thread (and cached): for request handlers. */
+export async function runOptimiseAsync(c: CaseSI, basis: CostBasisData, search: SearchSpec, prefix = 'body.case') {
+  try {
+    return await optimiseAsync(c, basis, search)
   } catch (e) {
     return toApiError(e, prefix)
   }

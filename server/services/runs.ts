@@ -4,7 +4,7 @@ import { ConflictError, NotFoundError, InfeasibleError } from '../errors.ts'
 import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
 import { EDITABLE, runRow, userNames, headline } from './studies.ts'
-import { libraryWith, parseCase, parseSearch, runDesign, runOptimise, assertFinite } from './engine-gateway.ts'
+import { libraryWith, parseCase, parseSearch, runDesign, runOptimiseAsync, assertFinite } from './engine-gateway.ts'
 import { ENGINE_VERSION } from './engine-version.ts'
 import type { ComponentLibrary, LibraryComponent } from '../engine/case.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
@@ -25,7 +25,7 @@ export async function compute(siteId: number, kind: 'design' | 'optimize', input
   const c = parseCase(inputs, library, 'inputs')
   if (kind === 'design') return runDesign(c, basis, 'inputs')
   if (!basis) throw new InfeasibleError('Optimisation needs a published cost basis for this site.', [{ path: 'costBasis', message: 'none is published', code: 'noCostBasis' }])
-  return runOptimise(c, basis, parseSearch(search, 'search'), 'inputs')
+  return runOptimiseAsync(c, basis, parseSearch(search, 'search'), 'inputs')
 }
 
 function tacOf(kind: 'design' | 'optimize', result: unknown): number | null {

@@ -93,6 +93,21 @@ describe('POST /designs/optimize', () => {
     expect(r.body.sensitivity.length).toBeGreaterThan(3)
   })
 
+  it('an unreachable emission limit comes back from the worker thread as a 422 with its field', async () => {
+    const r = await api().post('/api/v1/designs/optimize').set(await auth())
+      .send({ case: ethanolCase, search: { emissionLimit: 0, recovery: { min: 0.8, max: 0.99 } } })
+    expect(r.status).toBe(422)
+    expect(r.body.error.details[0]).toMatchObject({ path: 'body.search.emissionLimit', code: 'emissionLimitUnreachable' })
+  })
+
+  it('the same optimisation twice gives the same answer', async () => {
+    const body = { case: { ...ethanolCase, recovery: 0.97 }, costBasis: { preset: 'halvard-marrow-bay' }, search: { sensitivity: false } }
+    const a = await api().post('/api/v1/designs/optimize').set(await auth()).send(body)
+    const b = await api().post('/api/v1/designs/optimize').set(await auth()).send(body)
+    expect(a.status).toBe(200)
+    expect(b.body).toEqual(a.body)
+  })
+
   it('bad search settings: 400 with the path', async () => {
     const r = await api().post('/api/v1/designs/optimize').set(await auth()).send({ case: ethanolCase, search: { recovery: { min: 0.99, max: 0.9 } } })
     expect(r.status).toBe(400)

@@ -1,0 +1,125 @@
+import { Worker } from 'node:worker_threads'
+import { availableParallelism } from 'node:os'
+import { createHash } from 'node:crypto'
+import { optimise } from '../engine/optimisation/index.ts'
+import { NoFeasibleDesignError, type OptimiseResult } from '../engine/optimisation/core.ts'
+import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
+import { logger } from '../logger.ts'
+import type { CaseSI } from '../engine/case.ts'
+import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
+import type { SearchSpec } from '../../shared/schemas/search.ts'
+import type { WorkerError } from '../workers/optimise-worker.ts'
+
+/**
+ * Optimisations run on worker threads so that one long optimisation never stalls other requests,
+ * and the same optimisation (same case, cost basis and search, the answer is deterministic) is
+ * answered from a small in-memory cache. OPTIMISE_WORKERS=0 runs them inline.
+ */
+const WORKERS = Math.max(0, Number(process.env.OPTIMISE_WORKERS ?? Math.min(4, availableParallelism())))
+const CACHE_SIZE = 200
+
+type Pending = { resolve: (r: OptimiseResult) => void; reject: (e: unknown) => void; job: { c: CaseSI; basis: CostBasisData; search: SearchSpec } }
+interface Slot {
+  worker: Worker
+  busy: number
+}
+
+const slots: Slot[] = []
+const pending = new Map<number, Pending & { slot: Slot }>()
+let nextId = 1
+let broken = false
+
+function rebuild(e: WorkerError): Error {
+  switch (e.kind) {
+    case 'InvalidInputError':
+      return new InvalidInputError(e.path, e.reason, e.issues)
+    case 'InfeasibleDesignError':
+      return new InfeasibleDesignError(e.issues)
+    case 'NoFeasibleDesignError':
+      return new NoFeasibleDesignError(e.message, e.reasons)
+    case 'ConvergenceError':
+      return new ConvergenceError(e.message.replace(/ \(after .*\)$/, ''), e.iterations, e.residual)
+    default:
+      return new Error(e.message)
+  }
+}
+
+function spawn(): Slot {
+  const worker = new Worker(new URL('../workers/bootstrap.mjs', import.meta.url), {
+    workerData: { entry: new URL('../workers/optimise-worker.ts', import.meta.url).href },
+  })
+  const slot: Slot = { worker, busy: 0 }
+  worker.unref()
+  worker.on('message', (m: { id: number; ok: boolean; result?: OptimiseResult; error?: WorkerError }) => {
+    const p = pending.get(m.id)
+    if (!p) return
+    pending.delete(m.id)
+    slot.busy--
+    if (m.ok && m.result) p.resolve(m.result)
+    else p.reject(rebuild(m.error ?? { kind: 'Error', message: 'worker failed' }))
+  })
+  worker.on('error', (err) => {
+    // A worker that cannot run stops the pool; its jobs (and all later ones) run inline.
+    logger.error({ err }, 'optimisation worker failed; optimising inline from now on')
+    broken = true
+    for (const [id, p] of pending) {
+      if (p.slot === slot) {
+        pending.delete(id)
+        try {
+          p.resolve(optimise(p.job.c, p.job.basis, p.job.search))
+        } catch (e) {
+          p.reject(e)
+        }
+      }
+    }
+    const i = slots.indexOf(slot)
+    if (i >= 0) slots.splice(i, 1)
+  })
+  return slot
+}
+
+function leastBusy(): Slot | null {
+  if (WORKERS === 0 || broken) return null
+  try {
+    while (slots.length < WORKERS) slots.push(spawn())
+  } catch (err) {
+    broken = true
+    logger.warn({ err }, 'worker threads unavailable; optimising inline')
+    return null
+  }
+  return slots.reduce((a, b) => (b.busy < a.busy ? b : a))
+}
+
+const cache = new Map<string, OptimiseResult>()
+function keyOf(c: CaseSI, basis: CostBasisData, search: SearchSpec): string {
+  return createHash('sha256').update(JSON.stringify([c, basis, search])).digest('base64url')
+}
+
+export async function optimiseAsync(c: CaseSI, basis: CostBasisData, search: SearchSpec): Promise<OptimiseResult> {
+  const key = keyOf(c, basis, search)
+  const hit = cache.get(key)
+  if (hit) {
+    cache.delete(key)
+    cache.set(key, hit)
+    return structuredClone(hit)
+  }
+  const slot = leastBusy()
+  let result: OptimiseResult
+  if (!slot) {
+    result = optimise(c, basis, search)
+  } else {
+    const id = nextId++
+    slot.busy++
+    result = await new Promise<OptimiseResult>((resolve, reject) => {
+      pending.set(id, { resolve, reject, slot, job: { c, basis, search } })
+      slot.worker.postMessage({ id, c, basis, search })
+    })
+  }
+  cache.set(key, result)
+  if (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as string)
+  return structuredClone(result)
+}
+
+export async function stopOptimisePool(): Promise<void> {
+  await Promise.all(slots.splice(0).map((s) => s.worker.terminate()))
+}

@@ -654,7 +654,16 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
             absorptionFactorBottom: Abot,
             soluteAbsorbed: absorbed,
           },
-          efficiency: { model: c.efficiency.model, overallEfficiency: Eo, Kmean, traysRequired, trays },
+          efficiency: {
+            model: c.efficiency.model,
+            overallEfficiency: Eo,
+            Kmean,
+            traysRequired,
+            trays,
+            // information: Colburn's entrainment correction E_a = E/(1 + E psi/(1 - psi)) with the worst-end psi
+            // (Ludwig p. 200; applied to the overall efficiency as an approximation); not used for the tray count
+            entrainmentCorrectedEfficiency: Eo / (1 + (Eo * psi) / (1 - psi)),
+          },
           hydraulics: {
             designEnd: designEndIsBottom ? 'bottom' : 'top',
             spacingIterations,

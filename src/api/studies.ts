@@ -1,5 +1,4 @@
 import { API_BASE, http, type Query } from './http.ts'
-import type { ReviewEventView } from '@shared/schemas/review.ts'
 import type { CaseInput, OptionRow, Paged, RunRow, RunView, StudyRow, StudyView } from './types.ts'
 
 export interface StudyListQuery extends Query {
@@ -39,16 +38,6 @@ export const studiesApi = {
 export function itemsOf<T>(v: T[] | { items: T[] } | null | undefined): T[] {
   if (!v) return []
   return Array.isArray(v) ? v : v.items
-}
-
-export const reviewApi = {
-  thread: (siteId: number, studyId: number): Promise<ReviewEventView[]> => http.get(`${base(siteId)}/${studyId}/comments`),
-  comment: (siteId: number, studyId: number, body: string): Promise<unknown> => http.post(`${base(siteId)}/${studyId}/comments`, { body }),
-  submit: (siteId: number, studyId: number, recommendedOptionId: number, comment: string): Promise<unknown> =>
-    http.post(`${base(siteId)}/${studyId}/submit`, { recommendedOptionId, comment }),
-  approve: (siteId: number, studyId: number, comment: string): Promise<unknown> => http.post(`${base(siteId)}/${studyId}/approve`, { comment }),
-  returnStudy: (siteId: number, studyId: number, comment: string): Promise<unknown> => http.post(`${base(siteId)}/${studyId}/return`, { comment }),
-  revise: (siteId: number, studyId: number): Promise<StudyView> => http.post(`${base(siteId)}/${studyId}/revise`, {}),
 }
 
 /** Address of the printable report or spreadsheet (the browser sends the session cookie). */

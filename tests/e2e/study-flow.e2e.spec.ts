@@ -4,10 +4,11 @@
  * compare them.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { openBrowser, shot, signIn, type BrowserSession } from './support.ts'
+import { baseUrl, openBrowser, shot, signIn, type BrowserSession } from './support.ts'
 
 let s: BrowserSession
 const studyName = `Vent scrubber trial ${Date.now().toString(36)}`
+let studyPath = ''
 
 beforeAll(async () => {
   s = await openBrowser()
@@ -24,6 +25,7 @@ describe('engineer: study from inputs to compared options', () => {
     await p.getByTestId('new-study-name').locator('input').fill(studyName)
     await p.getByTestId('create-study').click()
     await p.waitForURL(/\/studies\/\d+\/streams/)
+    studyPath = new URL(p.url()).pathname.replace(/\/streams$/, '')
     await expect(p.getByTestId('study-title').innerText()).resolves.toBe(studyName)
     await p.getByTestId('gas-flow').locator('input').waitFor()
   })
@@ -103,5 +105,27 @@ describe('engineer: study from inputs to compared options', () => {
     await p.getByRole('img', { name: /Total annualised cost against Recovery/ }).waitFor()
     await shot(p, 'compare')
     expect(s.problems).toEqual([])
+  })
+
+  it('submits the optimum for review, and the reviewer approves it', async () => {
+    const p = s.page
+    await p.goto(`${baseUrl}${studyPath}/review`)
+    await p.getByTestId('recommended-select').click()
+    await p.getByRole('option', { name: 'Lowest-cost optimum' }).click()
+    await p.getByTestId('submit-note').locator('textarea').fill('Lowest annual cost with all tray checks acceptable.')
+    await p.getByTestId('submit-review').click()
+    await p.getByText('In review').first().waitFor()
+
+    const r = await openBrowser()
+    try {
+      await signIn(r.page, 'reviewer')
+      await r.page.goto(`${baseUrl}${studyPath}/review`)
+      await r.page.getByTestId('approve').click()
+      await r.page.getByText('Approved', { exact: true }).first().waitFor()
+      await shot(r.page, 'review-approved')
+      expect(r.problems).toEqual([])
+    } finally {
+      await r.close()
+    }
   })
 })

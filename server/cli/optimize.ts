@@ -8,7 +8,7 @@
  * Add --no-sensitivity to skip the tornado (faster).
  */
 import { fileURLToPath } from 'node:url'
-import { caseToSI, ConvergenceError, InfeasibleDesignError, InvalidInputError } from '../engine/index.ts'
+import { caseToSI, ConvergenceError, InfeasibleDesignError, InvalidInputError, invalidFromZod } from '../engine/index.ts'
 import { DEFAULT_PRESET, hasPreset, listPresets, loadPreset } from '../engine/costing/presets.ts'
 import { optimise } from '../engine/optimisation/optimise.ts'
 import { NoFeasibleDesignError, type OptimiseResult } from '../engine/optimisation/core.ts'
@@ -44,22 +44,14 @@ export function costBasisFrom(raw: unknown): CostBasisData {
     raw = deepMerge(loadPreset(preset), changes)
   }
   const r = costBasisSchema.safeParse(raw)
-  if (!r.success) {
-    const issues = r.error.issues.map((i) => ({ path: ['costBasis', ...i.path.map(String)].join('.'), code: 'invalidInput', message: i.message }))
-    const first = issues[0] ?? { path: 'costBasis', message: 'invalid' }
-    throw new InvalidInputError(first.path, first.message, issues)
-  }
+  if (!r.success) throw invalidFromZod(r.error, 'costBasis.')
   return r.data
 }
 
 /** The search spec of an optimize file (defaults for what is omitted). */
 export function searchFrom(raw: unknown): SearchSpec {
   const r = searchSpecSchema.safeParse(raw ?? {})
-  if (!r.success) {
-    const issues = r.error.issues.map((i) => ({ path: ['search', ...i.path.map(String)].join('.'), code: 'invalidInput', message: i.message }))
-    const first = issues[0] ?? { path: 'search', message: 'invalid' }
-    throw new InvalidInputError(first.path, first.message, issues)
-  }
+  if (!r.success) throw invalidFromZod(r.error, 'search.')
   return r.data
 }
 

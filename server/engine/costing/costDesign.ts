@@ -8,7 +8,14 @@
  * wider); the shell thickness used for the shell mass is a preliminary estimate, the vessel must be
  * designed to the local pressure-vessel code by a licensed engineer.
  */
-import type { CostBasisData, CostCurveData } from '../../../shared/schemas/costBasis.ts'
+import {
+  costItemLabels,
+  type CapitalItemKey,
+  type CostBasisData,
+  type CostCurveData,
+  type CostItemKey,
+  type OperatingItemKey,
+} from '../../../shared/schemas/costBasis.ts'
 import type { DesignResult, DesignSummary, EngineWarning } from '../contract.ts'
 import {
   capitalRecoveryFactor,
@@ -23,25 +30,14 @@ import {
 const G = 9.80665 // m/s2, standard gravity
 const ATM = 101325 // Pa
 
-export const capitalItemKeys = ['shell', 'platforms', 'trays', 'pump', 'motor', 'blower'] as const
-export const operatingItemKeys = ['solvent', 'pumpElectricity', 'blowerElectricity', 'lostProduct', 'emissionCharge'] as const
-export type CapitalItemKey = (typeof capitalItemKeys)[number]
-export type OperatingItemKey = (typeof operatingItemKeys)[number]
-export type CostItemKey = CapitalItemKey | OperatingItemKey
-
-export const costItemLabels: Record<CostItemKey, string> = {
-  shell: 'Shell and heads',
-  platforms: 'Platforms and ladders',
-  trays: 'Trays',
-  pump: 'Solvent pump',
-  motor: 'Pump motor',
-  blower: 'Blower',
-  solvent: 'Solvent make-up / treatment',
-  pumpElectricity: 'Pump electricity',
-  blowerElectricity: 'Blower electricity',
-  lostProduct: 'Lost product',
-  emissionCharge: 'Emission charge',
-}
+export {
+  capitalItemKeys,
+  operatingItemKeys,
+  costItemLabels,
+  type CapitalItemKey,
+  type OperatingItemKey,
+  type CostItemKey,
+} from '../../../shared/schemas/costBasis.ts'
 
 export interface CapitalItem {
   key: CapitalItemKey

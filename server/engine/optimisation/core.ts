@@ -217,56 +217,44 @@ function patternSearch(ev: Evaluator, basis: CostBasisData, box: Box, start: X, 
   let step = step0
   const nT = ev.spacings.length
   const lastDir: Record<'u' | 's' | 'f', number> = { u: 0, s: 0, f: 0 }
+  /** x moved by (du, ds, df) steps, clamped to the box; null when the clamp leaves it where it was. */
+  const moved = (from: X, du: number, ds: number, df: number): X | null => {
+    const y = {
+      u: Math.min(box.u[1], Math.max(box.u[0], from.u + du * step * span.u)),
+      s: Math.min(box.s[1], Math.max(box.s[0], from.s + ds * step * span.s)),
+      f: Math.min(box.f[1], Math.max(box.f[0], from.f + df * step * span.f)),
+      t: from.t,
+    }
+    return y.u === from.u && y.s === from.s && y.f === from.f ? null : y
+  }
+  const along = (k: 'u' | 's' | 'f', dir: number): [number, number, number] =>
+    k === 'u' ? [dir, 0, 0] : k === 's' ? [0, dir, 0] : [0, 0, dir]
+  const tryMove = (y: X | null): boolean => {
+    if (!y) return false
+    const t = ev.tac(y, basis)
+    if (!(t < best)) return false
+    best = t
+    x = y
+    return true
+  }
   while (step >= minStep) {
     let improved = false
     for (const k of keys) {
       if (span[k] <= 0) continue
-      const dirs = lastDir[k] < 0 ? [-1, 1] : [1, -1]
-      for (const dir of dirs) {
-        const lo = box[k][0]
-        const hi = box[k][1]
-        let v = x[k] + dir * step * span[k]
-        if (v < lo) v = lo
-        if (v > hi) v = hi
-        if (v === x[k]) continue
-        const y = { ...x, [k]: v }
-        const t = ev.tac(y, basis)
-        if (t < best) {
-          best = t
-          x = y
-          improved = true
-          lastDir[k] = dir
-          // expand along the successful direction while it keeps improving
-          for (;;) {
-            let w = x[k] + dir * step * span[k]
-            if (w < lo) w = lo
-            if (w > hi) w = hi
-            if (w === x[k]) break
-            const z = { ...x, [k]: w }
-            const tz = ev.tac(z, basis)
-            if (tz < best) {
-              best = tz
-              x = z
-            } else break
-          }
-          break
-        }
+      for (const dir of lastDir[k] < 0 ? [-1, 1] : [1, -1]) {
+        if (!tryMove(moved(x, ...along(k, dir)))) continue
+        improved = true
+        lastDir[k] = dir
+        // expand along the successful direction while it keeps improving
+        while (tryMove(moved(x, ...along(k, dir))));
+        break
       }
     }
     if (!improved && span.u > 0 && span.s > 0) {
       // diagonal moves in (recovery, solvent factor): the tray-count cells are bounded by curves
       // along which more recovery needs more solvent, so the best point often lies on a diagonal
       for (const [du, ds] of DIAGONALS) {
-        let vu = x.u + du * step * span.u
-        let vs = x.s + ds * step * span.s
-        vu = Math.min(box.u[1], Math.max(box.u[0], vu))
-        vs = Math.min(box.s[1], Math.max(box.s[0], vs))
-        if (vu === x.u && vs === x.s) continue
-        const y = { ...x, u: vu, s: vs }
-        const t = ev.tac(y, basis)
-        if (t < best) {
-          best = t
-          x = y
+        if (tryMove(moved(x, du, ds, 0))) {
           improved = true
           break
         }
@@ -274,14 +262,7 @@ function patternSearch(ev: Evaluator, basis: CostBasisData, box: Box, start: X, 
     }
     for (const dt of [-1, 1]) {
       const ti = x.t + dt
-      if (ti < 0 || ti >= nT) continue
-      const y = { ...x, t: ti }
-      const tt = ev.tac(y, basis)
-      if (tt < best) {
-        best = tt
-        x = y
-        improved = true
-      }
+      if (ti >= 0 && ti < nT && tryMove({ ...x, t: ti })) improved = true
     }
     if (!improved) step /= 2
   }

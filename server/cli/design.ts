@@ -2,8 +2,10 @@
  * Command line: `npm run --silent design -- FILE.json`
  *
  * FILE holds one case, or { "cases": [...] } for a batch (output: an array in order).
- * Prints the design JSON to stdout. Exit codes: 0 ok; 2 bad input (message with the
- * field path on stderr); 3 infeasible design (structured issues on stderr); 1 other.
+ * An optional "costBasis" beside the case (or the cases) — a full cost basis or
+ * { "preset": "name" } — prices each design: its summary gains totalAnnualCost and costBreakdown.
+ * Prints the design JSON to stdout. Exit codes: 0 ok; 2 bad or infeasible input (message with
+ * the field path on stderr); 1 other.
  *
  * The work is in runDesignFile / designOutput so other commands (e.g. with a cost basis)
  * can extend it.
@@ -12,6 +14,8 @@ import { readFileSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
 import { evaluateBatch, evaluateCase, InvalidInputError, InfeasibleDesignError, ConvergenceError, ENGINE_VERSION } from '../engine/index.ts'
 import type { DesignResult } from '../engine/contract.ts'
+import { priceDesign } from '../engine/costing/index.ts'
+import { costBasisFrom } from './optimize.ts'
 
 export type DesignOutput = DesignResult | ReturnType<typeof evaluateBatch>
 
@@ -22,7 +26,17 @@ export function isBatch(raw: unknown): boolean {
 
 /** Design output for parsed JSON (one case -> result; batch -> array of results). */
 export function designOutput(raw: unknown): DesignOutput {
-  return isBatch(raw) ? evaluateBatch(raw) : evaluateCase(raw)
+  const hasBasis = typeof raw === 'object' && raw !== null && !Array.isArray(raw) && 'costBasis' in raw
+  const basis = hasBasis ? costBasisFrom((raw as { costBasis: unknown }).costBasis) : null
+  const out = isBatch(raw) ? evaluateBatch(raw) : evaluateCase(raw)
+  if (basis) {
+    for (const r of Array.isArray(out) ? out : [out]) {
+      if (!r || typeof r !== 'object' || !('summary' in r)) continue
+      const priced = priceDesign(r as DesignResult, basis)
+      Object.assign((r as DesignResult).summary, { totalAnnualCost: priced.totalAnnualCost, costBreakdown: priced.costBreakdown })
+    }
+  }
+  return out
 }
 
 /**
@@ -70,11 +84,11 @@ export function main(argv: string[], out: (s: string) => void = (s) => process.s
     if (e instanceof InfeasibleDesignError) {
       err(`infeasible design:\n`)
       for (const i of e.issues) err(`  ${i.path} [${i.code}]: ${i.message}\n`)
-      return 3
+      return 2
     }
     if (e instanceof ConvergenceError) {
       err(`no convergence: ${e.message}\n`)
-      return 3
+      return 2
     }
     err(`error: ${(e as Error).stack ?? String(e)}\n`)
     return 1

@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process'
-import { mkdtempSync, writeFileSync, rmSync } from 'node:fs'
+import { mkdtempSync, readFileSync, writeFileSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, describe, expect, it } from 'vitest'
@@ -59,12 +59,30 @@ describe('design command line (in process)', () => {
     expect(runInProcess(f).status).toBe(2)
     expect(runInProcess(join(dir, 'nope.json')).status).toBe(2)
   })
-  it('an infeasible design: exit code 3 with the reason', () => {
+  it('an infeasible design: exit code 2 with the reason', () => {
     const f = join(dir, 'infeasible.json')
     writeFileSync(f, JSON.stringify({ gas: { flow: 100, temperature: 30, pressure: 100, soluteMoleFraction: 0.01, carrier: 'air' }, solute: 'ethanol', solvent: 'water', equilibrium: { model: 'constantK', K: 1 }, recovery: 0.9, solventFactor: 0.8 }))
     const r = runInProcess(f)
-    expect(r.status).toBe(3)
+    expect(r.status).toBe(2)
     expect(r.stderr).toContain('belowMinimumSolvent')
+  })
+  it('a cost basis beside the case adds totalAnnualCost and costBreakdown to each summary', () => {
+    const one = JSON.parse(readFileSync('data/examples/design.json', 'utf8')) as Record<string, unknown>
+    const f = join(dir, 'priced.json')
+    writeFileSync(f, JSON.stringify({ cases: [one, { ...one, recovery: 0.95 }], costBasis: { preset: 'halvard-cobalt-ridge' } }))
+    const r = runInProcess(f)
+    expect(r.status).toBe(0)
+    const out = JSON.parse(r.stdout) as { summary: { totalAnnualCost: number; costBreakdown: { totalAnnualCost: number } } }[]
+    expect(out).toHaveLength(2)
+    for (const d of out) {
+      expect(d.summary.totalAnnualCost).toBeGreaterThan(0)
+      expect(d.summary.costBreakdown.totalAnnualCost).toBe(d.summary.totalAnnualCost)
+    }
+    const bad = join(dir, 'priced-bad.json')
+    writeFileSync(bad, JSON.stringify({ ...one, costBasis: { preset: 'nope' } }))
+    const b = runInProcess(bad)
+    expect(b.status).toBe(2)
+    expect(b.stderr).toContain('costBasis.preset')
   })
   it('usage without a file: exit code 2', () => {
     expect(main([], () => {}, () => {})).toBe(2)

@@ -104,3 +104,20 @@ setUnauthorizedHandler(() => {
     void router.push({ name: 'sign-in', query: { redirect: current.fullPath, expired: '1' } })
   }
 })
+
+/**
+ * After a new release the old lazy chunks are gone: when a view fails to load, load the page
+ * afresh once (a second failure is shown as it is).
+ */
+router.onError((err: unknown, to) => {
+  const message = err instanceof Error ? err.message : String(err)
+  if (!/dynamically imported module|Importing a module script failed|error loading dynamically/i.test(message)) return
+  const key = 'scrubwright.reloadedFor'
+  try {
+    if (sessionStorage.getItem(key) === to.fullPath) return
+    sessionStorage.setItem(key, to.fullPath)
+  } catch {
+    return
+  }
+  window.location.assign(to.fullPath)
+})

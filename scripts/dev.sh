@@ -11,7 +11,13 @@ export PORT="${PORT:-8640}" HOST="${HOST:-127.0.0.1}"
 DB_PORT="${DB_PORT:-33406}"; DATA_DIR="${DATA_DIR:-$ROOT/.data}"; mkdir -p "$DATA_DIR"
 ensure_node_modules
 STARTED_DB=0
-cleanup() { trap - INT TERM EXIT; kill 0 2>/dev/null || true; [ "$STARTED_DB" = 1 ] && mariadb_stop "$DATA_DIR/mariadb"; }
+API_PID=""; VITE_PID=""
+cleanup() {
+  trap - INT TERM EXIT
+  for p in $API_PID $VITE_PID; do kill -TERM "$p" 2>/dev/null || true; done
+  for p in $API_PID $VITE_PID; do wait "$p" 2>/dev/null || true; done
+  if [ "$STARTED_DB" = 1 ]; then echo "[scrubwright] stopping MariaDB"; mariadb_stop "$DATA_DIR/mariadb"; fi
+}
 trap cleanup INT TERM EXIT
 if [ -z "${DATABASE_URL:-}" ]; then
   mariadb_ensure_installed
@@ -27,6 +33,9 @@ if [ -z "${JWT_SECRET:-}" ]; then
 fi
 npx tsx server/db/cli.ts migrate
 npx tsx server/db/cli.ts seed
-npx tsx watch server/index.ts &
-npx vite --host 127.0.0.1 --port "${VITE_PORT:-5173}" &
-wait
+node_modules/.bin/tsx watch server/index.ts &
+API_PID=$!
+node_modules/.bin/vite --host 127.0.0.1 --port "${VITE_PORT:-5173}" &
+VITE_PID=$!
+# Until either stops (or Ctrl-C); the trap then stops the other and the database.
+wait -n "$API_PID" "$VITE_PID" || true

@@ -58,7 +58,7 @@ if [ "$WHAT" = all ] || [ "$WHAT" = e2e ]; then
   npx tsx server/db/cli.ts migrate >/dev/null
   npx tsx server/db/cli.ts seed >/dev/null
   npx vite build --logLevel error
-  PORT="$E2E_PORT" HOST=127.0.0.1 SMTP_PORT="${E2E_SMTP_PORT:-2527}" npx tsx server/index.ts > "$TMP/server.log" 2>&1 &
+  PORT="$E2E_PORT" HOST=127.0.0.1 SMTP_PORT="${E2E_SMTP_PORT:-2527}" node_modules/.bin/tsx server/index.ts > "$TMP/server.log" 2>&1 &
   SERVER_PID=$!
   wait_for_http "http://127.0.0.1:$E2E_PORT/api/v1/health" 60 || { cat "$TMP/server.log"; exit 1; }
   E2E_BASE_URL="http://127.0.0.1:$E2E_PORT" npx vitest run --project e2e || { echo "--- server log (tail)"; tail -40 "$TMP/server.log"; exit 1; }

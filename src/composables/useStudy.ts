@@ -4,6 +4,7 @@ import { designsApi } from '@/api/designs.ts'
 import { ApiError, fieldErrors } from '@/api/http.ts'
 import { designOf, isOptimizeResult, type CaseInput, type ComponentEntry, type RunView, type StudyView } from '@/api/types.ts'
 import type { AsyncStatus } from './useAsync.ts'
+import { searchSpecSchema } from '@shared/schemas/search.ts'
 
 function clone<T>(v: T): T {
   return JSON.parse(JSON.stringify(v)) as T
@@ -30,6 +31,8 @@ export function useStudy(siteId: () => number, studyId: () => number) {
   const draft = ref<CaseInput | null>(null)
   const name = ref('')
   const description = ref('')
+  /** The optimiser's search limits (only the fields the engineer set; the rest take defaults). */
+  const search = ref<Record<string, unknown>>({})
   const dirty = ref(false)
   const saving = ref(false)
   const running = ref<'design' | 'optimize' | null>(null)
@@ -42,7 +45,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
 
   let loadingDraft = false
   watch(
-    [draft, name, description],
+    [draft, name, description, search],
     () => {
       if (!loadingDraft) dirty.value = true
     },
@@ -56,6 +59,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
       draft.value = clone(s.inputs)
       name.value = s.name
       description.value = s.description ?? ''
+      search.value = clone(s.search ?? {})
       dirty.value = false
       // let the deep watcher see the new draft before we start tracking edits again
       void Promise.resolve().then(() => {
@@ -111,6 +115,10 @@ export function useStudy(siteId: () => number, studyId: () => number) {
     conflict.value = false
     errors.value = await validateCase(draft.value)
     if (!name.value.trim()) errors.value.name = ['Give the study a name.']
+    const searchCheck = searchSpecSchema.safeParse(search.value)
+    if (!searchCheck.success) {
+      for (const issue of searchCheck.error.issues) (errors.value[['search', ...issue.path].join('.')] ??= []).push(issue.message)
+    }
     if (Object.keys(errors.value).length > 0) {
       actionError.value = new ApiError(400, 'validation', 'Some inputs need attention (marked on the fields).')
       return false
@@ -121,6 +129,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
         name: name.value.trim(),
         description: description.value,
         inputs: draft.value,
+        search: Object.keys(search.value).length > 0 ? search.value : null,
         lockVersion: s.lockVersion,
       })
       adopt({ ...s, ...updated }, true)
@@ -188,7 +197,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
   })
 
   return {
-    study, status, error, draft, name, description, dirty, saving, running, actionError, conflict, errors, library,
+    study, status, error, draft, name, description, search, dirty, saving, running, actionError, conflict, errors, library,
     designRun, optimizeRun, currentRun, design, optimisation, cautions, can, canEdit,
     load, save, run, pin, removeOption,
   }

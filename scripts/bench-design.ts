@@ -3,7 +3,7 @@
  *
  * Prints designs/second for the dilute (Kremser) path and the stage-by-stage path
  * (warm-up, then ~1.5 s timed per round, median of 3 rounds) and the wall time of the
- * batch CLI for 10,000 cases (temp file, child process). Targets (issue): >= 100,000
+ * batch CLI for 10,000 cases (temp file, child process). Targets: >= 100,000
  * dilute and >= 10,000 stage-by-stage designs/s on one core.
  * `benchDesign()` is exported for the top-level bench script.
  */

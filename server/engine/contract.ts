@@ -26,9 +26,9 @@ export interface EngineWarning {
   path?: string // input field concerned, e.g. 'tray.holeDiameter'
 }
 
-/** Flat summary; the keys from issue 3 are fixed, the rest serve the cost model. */
+/** Flat summary; the first keys are the published interface (stable), the rest serve the cost model and the UI. */
 export interface DesignSummary {
-  // fixed by the issue (SI; kmol/h for molar flows)
+  // the stable public keys (SI; kmol/h for molar flows)
   minimumSolventFlow: number // kmol/h
   solventFlow: number // kmol/h
   absorptionFactor: number // -

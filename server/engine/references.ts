@@ -1,6 +1,6 @@
 /**
  * Bibliography of the design engine, by key. Every correlation's doc block names its
- * source by one of these keys. `tag` follows the engineering-references file:
+ * source by one of these keys. `tag` says how far a value is vouched for:
  * 'C' read in the named source, 'D' derived from a C formula, 'M' from memory (to be
  * confirmed before it becomes a hard test value), 'CP' common practice.
  */

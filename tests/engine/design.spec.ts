@@ -6,8 +6,8 @@ import { designSI } from '../../server/engine/design.ts'
 const demo = JSON.parse(readFileSync('data/examples/design.json', 'utf8')) as Record<string, unknown>
 const demoGas = demo.gas as Record<string, unknown>
 
-/** A plain copy of the brief's example case (no library names). */
-const briefCase = {
+/** The demo ethanol case written out in full (no library names). */
+const demoCase = {
   gas: { flow: 420, temperature: 32, pressure: 115, soluteMoleFraction: 0.015, carrierMolarMass: 44.01 },
   solute: { molarMass: 46.07 },
   solvent: { temperature: 30, soluteMoleFraction: 0, molarMass: 18.015, density: 995, viscosity: 0.8, surfaceTension: 70 },
@@ -28,7 +28,7 @@ function errorOf(f: () => unknown): unknown {
 }
 
 describe('the demo case, looked at as an engineer would', () => {
-  const r = evaluateCase(briefCase)
+  const r = evaluateCase(demoCase)
   const s = r.summary
   it('a ~1-1.5 m column with 10-25 trays (O\'Connell about 50 %)', () => {
     expect(s.selectedDiameter).toBeGreaterThanOrEqual(1)
@@ -65,13 +65,13 @@ describe('the demo case, looked at as an engineer would', () => {
     const d = evaluateCase(demo)
     expect(d.cautions.some((c) => /Ethanol is flammable/.test(c))).toBe(true)
     expect(d.cautions.some((c) => /asphyxiant/.test(c))).toBe(true)
-    const a = evaluateCase({ ...briefCase, solute: 'ammonia', equilibrium: { model: 'henry' } })
+    const a = evaluateCase({ ...demoCase, solute: 'ammonia', equilibrium: { model: 'henry' } })
     expect(a.cautions.some((c) => /toxic/.test(c))).toBe(true)
   })
   it('common practice: foaming factor about 0.9 for alcohol absorbers (Kister 1992, from memory) widens the column by 1/sqrt(0.9)', () => {
     expect((demo.tray as { foamingFactor: number }).foamingFactor).toBe(0.9)
-    const d09 = evaluateCase(briefCase).summary.diameter
-    const d10 = evaluateCase({ ...briefCase, tray: { ...briefCase.tray, foamingFactor: 1 } }).summary.diameter
+    const d09 = evaluateCase(demoCase).summary.diameter
+    const d10 = evaluateCase({ ...demoCase, tray: { ...demoCase.tray, foamingFactor: 1 } }).summary.diameter
     expect(d09 / d10).toBeCloseTo(1 / Math.sqrt(0.9), 9)
   })
   it('version constant', () => expect(ENGINE_VERSION).toMatch(/^\d+\.\d+\.\d+$/))
@@ -83,7 +83,7 @@ describe('Kremser and stage-by-stage agree within 1 % on dilute linear cases', (
   for (const [y, K] of grid) {
     {
       it(`y_in = ${y}, K = ${K}`, () => {
-        const base = { ...briefCase, gas: { ...briefCase.gas, soluteMoleFraction: y }, equilibrium: { model: 'constantK', K } }
+        const base = { ...demoCase, gas: { ...demoCase.gas, soluteMoleFraction: y }, equilibrium: { model: 'constantK', K } }
         const a = evaluateCase({ ...base, method: 'kremser' }).summary
         const b = evaluateCase({ ...base, method: 'stageByStage' }).summary
         expect(Math.abs(b.theoreticalStages / a.theoreticalStages - 1)).toBeLessThan(0.01)
@@ -92,15 +92,15 @@ describe('Kremser and stage-by-stage agree within 1 % on dilute linear cases', (
     }
   }
   it('auto picks stage-by-stage for tables, Margules curvature and y_in > 0.05 (common practice)', () => {
-    expect(evaluateCase(briefCase).profile.method).toBe('kremser')
-    expect(evaluateCase({ ...briefCase, gas: { ...briefCase.gas, soluteMoleFraction: 0.08 } }).profile.method).toBe('stageByStage')
+    expect(evaluateCase(demoCase).profile.method).toBe('kremser')
+    expect(evaluateCase({ ...demoCase, gas: { ...demoCase.gas, soluteMoleFraction: 0.08 } }).profile.method).toBe('stageByStage')
     expect(evaluateCase(JSON.parse(readFileSync('data/examples/design-table.json', 'utf8'))).profile.method).toBe('stageByStage')
     expect(evaluateCase({ ...demo, equilibrium: { model: 'modifiedRaoult', activityModel: 'margules' } }).profile.method).toBe('stageByStage')
   })
 })
 
 describe('optimiser variables and options', () => {
-  const c = caseToSI(briefCase)
+  const c = caseToSI(demoCase)
   it('vars override recovery, solvent factor, spacing and flood fraction', () => {
     const r = designSI(c, { recovery: 0.95, solventFactor: 2, traySpacing: 0.45, floodFraction: 0.7 })
     expect(r.summary.recovery).toBe(0.95)
@@ -116,7 +116,7 @@ describe('optimiser variables and options', () => {
     const e = errorOf(() => designSI(c, { actualTrays: 2 }))
     expect(e).toBeInstanceOf(InfeasibleDesignError)
     expect((e as InfeasibleDesignError).issues[0]!.code).toBe('tooFewTrays')
-    const sbs = caseToSI({ ...briefCase, method: 'stageByStage' })
+    const sbs = caseToSI({ ...demoCase, method: 'stageByStage' })
     const m2 = designSI(sbs, { actualTrays: designSI(sbs).summary.actualTrays + 5 })
     expect(m2.summary.achievedRecovery!).toBeGreaterThan(0.985)
   })
@@ -127,18 +127,18 @@ describe('optimiser variables and options', () => {
     expect(b.profile.stages).toHaveLength(0)
   })
   it('spacing "auto" converges to the rule and records the iterations', () => {
-    const r = evaluateCase({ ...briefCase, tray: { ...briefCase.tray, spacing: 'auto' } })
+    const r = evaluateCase({ ...demoCase, tray: { ...demoCase.tray, spacing: 'auto' } })
     expect(r.summary.traySpacing).toBe(0.6) // 1.45 m -> 0.6 m
-    const small = evaluateCase({ ...briefCase, gas: { ...briefCase.gas, flow: 60 }, tray: { ...briefCase.tray, spacing: 'auto' } })
+    const small = evaluateCase({ ...demoCase, gas: { ...demoCase.gas, flow: 60 }, tray: { ...demoCase.tray, spacing: 'auto' } })
     expect(small.summary.selectedDiameter).toBeLessThanOrEqual(1)
     expect(small.summary.traySpacing).toBe(0.5)
   })
   it('an oscillating custom spacing rule settles on the larger spacing with a warning', () => {
     // a rule where 0.3 m spacing needs > 1 m but 0.9 m spacing allows < 1 m
     const r = evaluateCase({
-      ...briefCase,
-      gas: { ...briefCase.gas, flow: 190 },
-      tray: { ...briefCase.tray, spacing: 'auto', spacingRule: [{ maxDiameter: 1, spacing: 0.3 }, { maxDiameter: 10, spacing: 0.9 }] },
+      ...demoCase,
+      gas: { ...demoCase.gas, flow: 190 },
+      tray: { ...demoCase.tray, spacing: 'auto', spacingRule: [{ maxDiameter: 1, spacing: 0.3 }, { maxDiameter: 10, spacing: 0.9 }] },
     })
     expect(r.warnings.some((w) => w.code === 'spacingOscillation')).toBe(true)
     expect(r.summary.traySpacing).toBe(0.9)
@@ -146,13 +146,13 @@ describe('optimiser variables and options', () => {
 })
 
 describe('infeasible designs come back as structured reasons', () => {
-  const c = caseToSI(briefCase)
+  const c = caseToSI(demoCase)
   const cases: [string, () => unknown, string][] = [
     ['solvent factor <= 1', () => designSI(c, { solventFactor: 1 }), 'belowMinimumSolvent'],
     ['recovery outside (0, 1)', () => designSI(c, { recovery: 1 }), 'recoveryOutOfRange'],
-    ['lean solvent loaded beyond the target (y_out <= K x0)', () => evaluateCase({ ...briefCase, solvent: { ...briefCase.solvent, soluteMoleFraction: 0.001 } }), 'leanSolventLoaded'],
-    ['flooding impossible (capacity factor <= 0 at a huge liquid load)', () => evaluateCase({ ...briefCase, equilibrium: { model: 'constantK', K: 200 }, solventFactor: 3, tray: { ...briefCase.tray, spacing: 0.15 } }), 'flooding'],
-    ['equilibrium outside the model (x* >= 1)', () => evaluateCase({ ...briefCase, equilibrium: { model: 'constantK', K: 0.01 } }), 'equilibriumOutOfRange'],
+    ['lean solvent loaded beyond the target (y_out <= K x0)', () => evaluateCase({ ...demoCase, solvent: { ...demoCase.solvent, soluteMoleFraction: 0.001 } }), 'leanSolventLoaded'],
+    ['flooding impossible (capacity factor <= 0 at a huge liquid load)', () => evaluateCase({ ...demoCase, equilibrium: { model: 'constantK', K: 200 }, solventFactor: 3, tray: { ...demoCase.tray, spacing: 0.15 } }), 'flooding'],
+    ['equilibrium outside the model (x* >= 1)', () => evaluateCase({ ...demoCase, equilibrium: { model: 'constantK', K: 0.01 } }), 'equilibriumOutOfRange'],
     [
       'gas above its dew point (Margules, cold column)',
       () => evaluateCase({ ...demo, gas: { ...demoGas, soluteMoleFraction: 0.143, temperature: 5 }, solvent: { name: 'water', temperature: 5 }, equilibrium: { model: 'modifiedRaoult', activityModel: 'margules' } }),
@@ -171,21 +171,21 @@ describe('infeasible designs come back as structured reasons', () => {
 
 describe('bad input gives InvalidInputError with the field path', () => {
   const bad: [string, unknown, string][] = [
-    ['negative gas flow', { ...briefCase, gas: { ...briefCase.gas, flow: -3 } }, 'gas.flow'],
-    ['missing pressure', { ...briefCase, gas: { ...briefCase.gas, pressure: undefined } }, 'gas.pressure'],
-    ['unknown unit', { ...briefCase, gas: { ...briefCase.gas, flow: { value: 3, unit: 'bushel/h' } } }, 'gas.flow.unit'],
-    ['wrong-dimension unit', { ...briefCase, tray: { ...briefCase.tray, holeDiameter: { value: 3, unit: 'kg' } } }, 'tray.holeDiameter.unit'],
-    ['unknown component', { ...briefCase, solute: 'unobtainium' }, 'solute'],
-    ['unknown carrier', { ...briefCase, gas: { ...demoGas, carrier: 'argonite' } }, 'gas.carrier'],
-    ['recovery of 1', { ...briefCase, recovery: 1 }, 'recovery'],
-    ['mole fraction above 1', { ...briefCase, gas: { ...briefCase.gas, soluteMoleFraction: 1.2 } }, 'gas.soluteMoleFraction'],
-    ['NaN-like string', { ...briefCase, solventFactor: 'lots' }, 'solventFactor'],
-    ['unsorted table', { ...briefCase, equilibrium: { model: 'table', points: [[0, 0], [0.2, 0.1], [0.1, 0.2]] } }, 'equilibrium.points.2'],
-    ['unknown equilibrium model', { ...briefCase, equilibrium: { model: 'magic' } }, 'equilibrium.model'],
-    ['typo in a section', { ...briefCase, tray: { ...briefCase.tray, holeDiamter: 4 } }, 'tray'],
-    ['temperature below absolute zero', { ...briefCase, gas: { ...briefCase.gas, temperature: { value: -5, unit: 'K' } } }, 'gas.temperature'],
-    ['pitch smaller than holes', { ...briefCase, tray: { ...briefCase.tray, holePitch: 4 } }, 'tray.holePitch'],
-    ['missing solvent properties without a library solvent', { ...briefCase, solvent: { temperature: 30 } }, 'solvent.molarMass'],
+    ['negative gas flow', { ...demoCase, gas: { ...demoCase.gas, flow: -3 } }, 'gas.flow'],
+    ['missing pressure', { ...demoCase, gas: { ...demoCase.gas, pressure: undefined } }, 'gas.pressure'],
+    ['unknown unit', { ...demoCase, gas: { ...demoCase.gas, flow: { value: 3, unit: 'bushel/h' } } }, 'gas.flow.unit'],
+    ['wrong-dimension unit', { ...demoCase, tray: { ...demoCase.tray, holeDiameter: { value: 3, unit: 'kg' } } }, 'tray.holeDiameter.unit'],
+    ['unknown component', { ...demoCase, solute: 'unobtainium' }, 'solute'],
+    ['unknown carrier', { ...demoCase, gas: { ...demoGas, carrier: 'argonite' } }, 'gas.carrier'],
+    ['recovery of 1', { ...demoCase, recovery: 1 }, 'recovery'],
+    ['mole fraction above 1', { ...demoCase, gas: { ...demoCase.gas, soluteMoleFraction: 1.2 } }, 'gas.soluteMoleFraction'],
+    ['NaN-like string', { ...demoCase, solventFactor: 'lots' }, 'solventFactor'],
+    ['unsorted table', { ...demoCase, equilibrium: { model: 'table', points: [[0, 0], [0.2, 0.1], [0.1, 0.2]] } }, 'equilibrium.points.2'],
+    ['unknown equilibrium model', { ...demoCase, equilibrium: { model: 'magic' } }, 'equilibrium.model'],
+    ['typo in a section', { ...demoCase, tray: { ...demoCase.tray, holeDiamter: 4 } }, 'tray'],
+    ['temperature below absolute zero', { ...demoCase, gas: { ...demoCase.gas, temperature: { value: -5, unit: 'K' } } }, 'gas.temperature'],
+    ['pitch smaller than holes', { ...demoCase, tray: { ...demoCase.tray, holePitch: 4 } }, 'tray.holePitch'],
+    ['missing solvent properties without a library solvent', { ...demoCase, solvent: { temperature: 30 } }, 'solvent.molarMass'],
     ['not an object', 42, ''],
   ]
   for (const [what, raw, path] of bad) {
@@ -198,12 +198,12 @@ describe('bad input gives InvalidInputError with the field path', () => {
     })
   }
   it('batch errors name the case index', () => {
-    const e = errorOf(() => evaluateBatch({ cases: [briefCase, { ...briefCase, gas: { ...briefCase.gas, flow: -1 } }] }))
+    const e = errorOf(() => evaluateBatch({ cases: [demoCase, { ...demoCase, gas: { ...demoCase.gas, flow: -1 } }] }))
     expect(e).toBeInstanceOf(InvalidInputError)
     expect((e as InvalidInputError).path).toBe('cases.1.gas.flow')
   })
   it('a batch returns results in order', () => {
-    const r = evaluateBatch({ cases: [briefCase, { ...briefCase, recovery: 0.9 }] })
+    const r = evaluateBatch({ cases: [demoCase, { ...demoCase, recovery: 0.9 }] })
     expect(r).toHaveLength(2)
     expect((r[1] as { summary: { recovery: number } }).summary.recovery).toBe(0.9)
   })
@@ -211,17 +211,17 @@ describe('bad input gives InvalidInputError with the field path', () => {
 
 describe('units in case files', () => {
   it('US customary inputs give the same design as SI inputs', () => {
-    const si = evaluateCase(briefCase).summary
+    const si = evaluateCase(demoCase).summary
     const us = evaluateCase({
-      ...briefCase,
+      ...demoCase,
       gas: {
-        ...briefCase.gas,
+        ...demoCase.gas,
         flow: { value: 420 / 0.45359237, unit: 'lbmol/h' },
         temperature: { value: 32 * 1.8 + 32, unit: 'degF' },
         pressure: { value: 115000 / 6894.757293168, unit: 'psia' },
       },
-      tray: { ...briefCase.tray, holeDiameter: { value: 4.5 / 25.4, unit: 'in' }, spacing: { value: 0.6 / 0.3048, unit: 'ft' } },
-      solvent: { ...briefCase.solvent, viscosity: { value: 0.8, unit: 'cP' }, surfaceTension: { value: 70, unit: 'dyn/cm' } },
+      tray: { ...demoCase.tray, holeDiameter: { value: 4.5 / 25.4, unit: 'in' }, spacing: { value: 0.6 / 0.3048, unit: 'ft' } },
+      solvent: { ...demoCase.solvent, viscosity: { value: 0.8, unit: 'cP' }, surfaceTension: { value: 70, unit: 'dyn/cm' } },
     }).summary
     expect(us.selectedDiameter).toBeCloseTo(si.selectedDiameter, 9)
     expect(us.theoreticalStages).toBeCloseTo(si.theoreticalStages, 9)

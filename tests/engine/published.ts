@@ -1,7 +1,7 @@
 /**
  * Published check values: { source, where, expected, tolerance } with the source named.
  * Tolerance is absolute and matches the digits printed in the source.
- * Tags as in the engineering-references file: C read in the source, D derived from a C
+ * Tags: C read in the source, D derived from a C
  * formula, M from memory (tests using M values say so).
  */
 import { expect } from 'vitest'

@@ -8,8 +8,8 @@
  * dilute, linear equilibrium, the Kremser equation gives the recovery at solvent flow L:
  *     A = L / (K V),  r(A) = (A^{N+1} − A) / (A^{N+1} − 1)   (r = N/(N+1) at A = 1)
  * with K V taken from the design's minimum solvent: L_min = K V r_design (pure solvent, pinch at
- * the rich end). Source of the Kremser form: Kremser (1930), as given in the engineering references
- * of the product (reference key 'kremser1930' in server/engine/references.ts).
+ * the rich end). Source of the Kremser form: reference key 'kremser1930' in
+ * server/engine/references.ts.
  * Variable cost per year at flow q (m³/h): q·h·c_solvent + q·e_pump·h·c_el + (1 − r)·S·h·(v + c_em)
  * where S is the solute entering (kg/h), h the operating hours, e_pump the design pump electricity
  * per m³/h, v the product value and c_em the emission charge. Capital is spent and not part of the

@@ -62,7 +62,7 @@ export const henryValidity: ValidityRange = { arg: 'T', min: 273.15, max: 333.15
  * @param cw molar density of the solvent [mol/m3] (rho_w / M_w)
  * @param P total pressure [Pa]
  * Validity: dilute solute (x < about 0.05).
- * Source: sander2015 (definitions); engineering-references sec. 7 (check values, tag D).
+ * Source: sander2015 (definitions); the check values are derived from them (tag D).
  * Example: ethanol at 25 degC, 101.325 kPa: Hcp 1.9, cw 55344 -> K = 0.2875
  */
 export function kFromHenry(Hcp: number, cw: number, P: number): number {

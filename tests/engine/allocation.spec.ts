@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest'
 import { fractionAbsorbed, allocateSolvent, allocateBruteForce, unitCost, unitRecovered, type AllocationUnit } from '../../server/engine/allocation/solvent.ts'
 
 // Kremser fraction absorbed: check values computed from the closed form (A^{N+1} − A)/(A^{N+1} − 1),
-// listed in the product's engineering references (tag D).
+// derived from the formula (tag D).
 describe('Kremser fraction absorbed (closed form)', () => {
   it.each([
     [1.4, 5, 0.93874],

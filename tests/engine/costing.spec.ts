@@ -29,7 +29,7 @@ const seider = loadPreset('seider-3rd-ce500')
 const turton = loadPreset('turton-3rd-cepci397')
 
 describe('capital recovery factor — compound-interest tables (A/P)', () => {
-  // source: standard compound-interest tables, A/P column; values in the product's engineering references [D]
+  // source: standard compound-interest tables, A/P column; values derived from the formula [D]
   const cases: [number, number, number][] = [
     [0.1, 10, 0.162745],
     [0.08, 20, 0.101852],

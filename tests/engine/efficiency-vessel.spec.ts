@@ -5,7 +5,7 @@ import type { EngineWarning } from '../../server/engine/contract.ts'
 import { expectPublished } from './published.ts'
 
 describe("O'Connell absorber efficiency", () => {
-  const src = "O'Connell absorber fit (Seader & Henley form; formula M), check value engineering references sec. 3 (D)"
+  const src = "O'Connell absorber fit (Seader & Henley form; formula M), check value derived from the formula (D)"
   it('EtOH-water at 30 degC: K 0.57, M 18.02, mu 0.797 cP, rho 62.18 lb/ft3 -> group 0.13166, E_o = 50.4 %', () => {
     const rho = 62.18 * LB_PER_FT3
     expectPublished({ source: src, where: 'group', expected: 0.13166, tolerance: 1e-5 }, oconnellGroup(0.57, 0.01802, 0.797e-3, rho))

@@ -3,7 +3,7 @@ import { henryAtT, kFromHenry, LinearEquilibrium, MargulesRaoultEquilibrium, Tab
 import { densityWater } from '../../server/engine/properties/water.ts'
 import { expectPublished } from './published.ts'
 
-const SRC = "Sander compilation H values + K = c_w/(H^cp P), engineering references sec. 7 (D)"
+const SRC = "Sander compilation H values + K = c_w/(H^cp P) (derived values, D)"
 const Mw = 0.018015
 function K(H0: number, B: number, tC: number, P: number): number {
   const T = 273.15 + tC

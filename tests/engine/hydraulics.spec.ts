@@ -18,7 +18,7 @@ import { densityIdealGas } from '../../server/engine/properties/gas.ts'
 import type { EngineWarning } from '../../server/engine/contract.ts'
 import { expectPublished } from './published.ts'
 
-const FIT = 'Fair (1961) curve fit, Treybal Table 6.2 / Benitez eqs 4.29-4.32; check values engineering references sec. 2 (D)'
+const FIT = 'Fair (1961) curve fit, Treybal Table 6.2 / Benitez eqs 4.29-4.32; check values derived from the fit (D)'
 
 describe('Fair flooding correlation: capacity values', () => {
   it('t = 0.5 m: alpha 0.04893, beta 0.03020, C_F = 0.07913 m/s for F_LV <= 0.1', () => {
@@ -63,7 +63,7 @@ describe('Fair flooding correlation: capacity values', () => {
 })
 
 describe('Treybal Illus. 6.3 (methanol-water, 95 degC): flooding and diameter', () => {
-  const src = 'Treybal Illus. 6.3 worked example, reproduced in engineering references sec. 2 (D; D = 1.25 m is C)'
+  const src = 'Treybal Illus. 6.3 worked example, values recomputed from its data (D; D = 1.25 m as printed, C)'
   const G = 0.1 * 20.52 // kg/s
   const rhoV = densityIdealGas(101325, 0.02052, 368.15)
   const Mliq = 1 / (0.15 / 32.04 + 0.85 / 18.02)
@@ -87,7 +87,7 @@ describe('Treybal Illus. 6.3 (methanol-water, 95 degC): flooding and diameter', 
 })
 
 describe('tray geometry and heads', () => {
-  it('Francis weir: 10 kg/s, 1000 kg/m3, 0.8 m -> 40.40 mm (Sinnott; engineering references 4c, D)', () => {
+  it('Francis weir: 10 kg/s, 1000 kg/m3, 0.8 m -> 40.40 mm (Sinnott; derived from the formula, D)', () => {
     expectPublished({ source: 'Sinnott sec. 11.13 Francis weir formula (D)', where: 'h_ow', expected: 40.4, tolerance: 0.005 }, 1000 * weirCrestFrancis(10 / 1000, 0.8))
   })
   it('segmental downcomer: A_d/A_t = 0.1 gives L_w/D = 0.7267 (Benitez ch. 4 geometry)', () => {

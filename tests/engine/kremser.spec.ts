@@ -5,7 +5,7 @@ import { minimumSlopeEndPinch, minimumSlopeGeneral } from '../../server/engine/b
 import { LinearEquilibrium, TableEquilibrium } from '../../server/engine/equilibrium/models.ts'
 import { expectPublished } from './published.ts'
 
-const D = 'Kremser equation, engineering references sec. 1 (D, from the cbu.edu / Benitez 5.1 forms)'
+const D = 'Kremser equation (D: computed from the closed forms for fraction absorbed and stages)'
 
 describe('Kremser: published check values', () => {
   const cases: [number, number, number][] = [
@@ -33,7 +33,7 @@ describe('Kremser: published check values', () => {
 })
 
 describe('stage-by-stage profile check (A = 1.4, m = 1, y_in = 0.02, x0 = 0, N = 5)', () => {
-  const src = 'engineering references sec. 1, stage-by-stage check (D)'
+  const src = 'Kremser closed form vs stage-by-stage balance, values computed from the formula (D)'
   const eq = new LinearEquilibrium(1)
   const out = { N: 0, steps: 0, x: [] as number[], y: [] as number[] }
   const y1 = 0.02 * (1 - fractionAbsorbedKremser(1.4, 5))

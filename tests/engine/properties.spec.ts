@@ -13,7 +13,7 @@ describe('ideal gas with the CODATA 2018 gas constant', () => {
   })
   it('density of the Treybal Illus. 6.3 vapour (M 20.52, 95 degC, 1 atm) = 0.67928 kg/m3', () => {
     expectPublished(
-      { source: 'engineering references sec. 2, Treybal Illus. 6.3 (D)', where: 'rho_G (M printed as 20.52, so +/- 0.025 %)', expected: 0.67928, tolerance: 0.0002 },
+      { source: 'Treybal Illus. 6.3 data, recomputed (D)', where: 'rho_G (M printed as 20.52, so +/- 0.025 %)', expected: 0.67928, tolerance: 0.0002 },
       densityIdealGas(101325, 0.02052, 368.15),
     )
   })
@@ -23,7 +23,7 @@ describe('ideal gas with the CODATA 2018 gas constant', () => {
 })
 
 describe('water: IAPWS R1-76(2014) surface tension', () => {
-  const src = 'IAPWS R1-76(2014) equation, engineering references sec. 7'
+  const src = 'IAPWS R1-76(2014) equation'
   const table: [number, number, number][] = [
     [0, 75.648, 0.0005],
     [20, 72.736, 0.0005],
@@ -47,13 +47,13 @@ describe('water: IAPWS R1-76(2014) surface tension', () => {
 
 describe('water density (Kell 1975) and viscosity (Vogel fit) against IAPWS values', () => {
   it('density within 0.02 kg/m3 of IAPWS-95 at 20, 25, 30 degC', () => {
-    const src = 'IAPWS-95 at 0.101325 MPa (M, engineering references sec. 7)'
+    const src = 'IAPWS-95 at 0.101325 MPa (M: from memory)'
     expectPublished({ source: src, where: '20 degC', expected: 998.207, tolerance: 0.02 }, densityWater(293.15))
     expectPublished({ source: src, where: '25 degC', expected: 997.047, tolerance: 0.02 }, densityWater(298.15))
     expectPublished({ source: src, where: '30 degC', expected: 995.65, tolerance: 0.02 }, densityWater(303.15))
   })
   it('viscosity within 0.5 % of IAPWS 2008 values', () => {
-    expectPublished({ source: 'IAPWS 2008 via property library (C), engineering references sec. 7', where: '25 degC, 0.1 MPa', expected: 0.89002, tolerance: 0.0045 }, 1000 * viscosityWater(298.15))
+    expectPublished({ source: 'IAPWS 2008 via a property library (C)', where: '25 degC, 0.1 MPa', expected: 0.89002, tolerance: 0.0045 }, 1000 * viscosityWater(298.15))
     expectPublished({ source: 'IAPWS 2008 (M)', where: '20 degC', expected: 1.0016, tolerance: 0.005 }, 1000 * viscosityWater(293.15))
     expectPublished({ source: 'IAPWS 2008 (M)', where: '30 degC', expected: 0.797, tolerance: 0.004 }, 1000 * viscosityWater(303.15))
   })

@@ -85,7 +85,7 @@ export function holeAreaFractionTriangular(dO: number, p: number): number {
 /**
  * Downcomer area / tower area from the flow parameter.
  * Equation: A_d/A_t = 0.10 (F_LV <= 0.1); 0.1 + (F_LV - 0.1)/9 (0.1-1.0); 0.2 (F_LV >= 1)
- * Source: benitez2009 eq. 4.34 (F_LV <= 0.1); the rest from memory (engineering references).
+ * Source: benitez2009 eq. 4.34 (F_LV <= 0.1); the rest from memory.
  * Example: F_LV 0.55 -> 0.15
  */
 export function downcomerAreaFraction(FLV: number): number {

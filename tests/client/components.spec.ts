@@ -4,12 +4,14 @@
  * Unit factors: NIST SP 811 (2008), Appendix B.8 — 1 in = 0.0254 m (exact);
  * inch of water (conventional) = 2.490 889 E+02 Pa.
  */
-import { beforeEach, describe, expect, it } from 'vitest'
+import { beforeEach, describe, expect, it, vi } from 'vitest'
 import { flushPromises, mount } from '@vue/test-utils'
 import { createPinia, setActivePinia, type Pinia } from 'pinia'
 import AppNumberField from '@/components/base/AppNumberField.vue'
 import StudyTrayChecks from '@/components/study/StudyTrayChecks.vue'
 import CostBasisForm from '@/components/costBasis/CostBasisForm.vue'
+import AppErrorAlert from '@/components/base/AppErrorAlert.vue'
+import { ApiError } from '@/api/http.ts'
 import { useSessionStore } from '@/stores/session.ts'
 import { useUnitsStore } from '@/stores/units.ts'
 import { demoUser, testVuetify } from './helpers.ts'
@@ -97,5 +99,27 @@ describe('CostBasisForm', () => {
     await input.setValue('8000')
     expect(draft.general.operatingHours).toBe(8000)
     expect(w.emitted('change')).toBeTruthy()
+  })
+})
+
+describe('AppErrorAlert', () => {
+  it('says "Not allowed" for a 403 and lists the details by field', () => {
+    const err = new ApiError(403, 'forbidden', 'Forbidden', [{ path: 'body.inputs.recovery', message: 'cannot be changed now' }])
+    const w = mount(AppErrorAlert, { props: { error: err }, global: { plugins: [testVuetify()] } })
+    expect(w.text()).toContain('Not allowed')
+    expect(w.text()).toContain('recovery:')
+    expect(w.text()).toContain('cannot be changed now')
+  })
+
+  it('offers "Try again" only when the page can retry', async () => {
+    const err = new ApiError(500, 'internal', 'Database unavailable')
+    const bare = mount(AppErrorAlert, { props: { error: err }, global: { plugins: [testVuetify()] } })
+    expect(bare.text()).not.toContain('Try again')
+    const retry = vi.fn()
+    const w = mount(AppErrorAlert, { props: { error: err, onRetry: retry }, global: { plugins: [testVuetify()] } })
+    const button = w.findAll('button').find((b) => b.text() === 'Try again')
+    expect(button).toBeDefined()
+    await button?.trigger('click')
+    expect(retry).toHaveBeenCalledOnce()
   })
 })

@@ -111,7 +111,7 @@ setUnauthorizedHandler(() => {
  */
 router.onError((err: unknown, to) => {
   const message = err instanceof Error ? err.message : String(err)
-  if (!/dynamically imported module|Importing a module script failed|error loading dynamically/i.test(message)) return
+  if (!/dynamically imported module|Importing a module script failed|error loading dynamically|Unable to preload CSS/i.test(message)) return
   const key = 'scrubwright.reloadedFor'
   try {
     if (sessionStorage.getItem(key) === to.fullPath) return

@@ -93,4 +93,14 @@ describe('sign-in by role', () => {
     await s.page.waitForURL(/\/compare/)
     await s.page.getByRole('heading', { name: 'Compare options' }).waitFor()
   })
+
+  it('signs out from the person menu; the portfolio then asks for sign-in again', async () => {
+    await signIn(s.page, 'economist')
+    await s.page.getByTestId('person-menu').click()
+    await s.page.getByTestId('sign-out').click()
+    await s.page.waitForURL(/\/sign-in/)
+    await s.page.goto(`${baseUrl}/portfolio`)
+    await s.page.waitForURL(/\/sign-in\?redirect=/)
+    await s.page.getByLabel('E-mail').waitFor()
+  })
 })

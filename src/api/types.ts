@@ -1,7 +1,7 @@
 /**
- * Client-side types for the API parts that have no shared schema (yet): the case,
- * design and optimisation results, studies, runs, options and cost-basis versions.
- * They follow the server's documented contract; unknown extra fields are kept.
+ * Client-side types for API answers. The case, studies, runs, options and cost-basis versions
+ * come from the shared schemas; design and optimisation results follow the engine's contract
+ * (server/engine/contract.ts), written out here because the client may not import server code.
  */
 import type { CostBasisInput } from '@shared/schemas/costBasis.ts'
 

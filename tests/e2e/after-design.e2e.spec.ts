@@ -343,7 +343,6 @@ describe('solvent allocation', () => {
     await p.getByTestId('alloc-limit').locator('input').fill((Math.round(designTotal * 0.8 * 1000) / 1000).toString())
     await p.getByTestId('alloc-name').locator('input').fill(`Summer supply ${t}`)
     await p.getByTestId('alloc-solve').click()
-    await shot(p, 'debug-alloc')
     await p.getByTestId('alloc-result').waitFor()
     await expect(p.getByTestId('alloc-split').locator('tbody tr').count()).resolves.toBe(2)
     await expect(p.getByTestId('alloc-shadow').innerText()).resolves.toMatch(/per m³\/h/)

@@ -33,3 +33,11 @@ ensure_chromium() {
   echo "[scrubwright] chromium is missing; install it as root with: apt-get install chromium" >&2
   return 1
 }
+
+# Refuse to start a server on a port another process already holds (its answers would be taken for ours).
+require_free_port() {
+  if (echo > "/dev/tcp/127.0.0.1/$1") 2>/dev/null; then
+    echo "[scrubwright] port $1 on 127.0.0.1 is in use; stop what holds it or choose another port (${2:-PORT})" >&2
+    return 1
+  fi
+}

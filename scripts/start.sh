@@ -48,6 +48,7 @@ npx tsx server/db/cli.ts seed
 echo "[scrubwright] building the client"
 npx vite build --logLevel warn
 
+require_free_port "$PORT" PORT
 node_modules/.bin/tsx server/index.ts &
 SERVER_PID=$!
 wait_for_http "http://$HOST:$PORT/api/v1/health" 60 || { echo "[scrubwright] server did not start" >&2; exit 1; }

@@ -58,6 +58,7 @@ if [ "$WHAT" = all ] || [ "$WHAT" = e2e ]; then
   npx tsx server/db/cli.ts migrate >/dev/null
   npx tsx server/db/cli.ts seed >/dev/null
   npx vite build --logLevel error
+  require_free_port "$E2E_PORT" E2E_PORT
   PORT="$E2E_PORT" HOST=127.0.0.1 SMTP_PORT="${E2E_SMTP_PORT:-2527}" node_modules/.bin/tsx server/index.ts > "$TMP/server.log" 2>&1 &
   SERVER_PID=$!
   wait_for_http "http://127.0.0.1:$E2E_PORT/api/v1/health" 60 || { cat "$TMP/server.log"; exit 1; }

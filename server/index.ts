@@ -4,6 +4,7 @@ import { logger } from './logger.ts'
 import { sequelize } from './db/sequelize.ts'
 import { startFakeSmtp } from './mail/fake-smtp.ts'
 import { startMailLoop, stopMailLoop, kick } from './services/mail.ts'
+import { warmOptimisePool, stopOptimisePool } from './services/optimise-pool.ts'
 
 // Development and tests: a local capture server stands in for the SMTP relay (see the Outbox page).
 let fakeSmtp: { close: () => Promise<void> } | null = null
@@ -18,6 +19,7 @@ if (config.MAIL_MODE === 'fake') {
 startMailLoop()
 void kick().catch(() => undefined)
 
+warmOptimisePool()
 const app = createApp()
 const server = app.listen(config.PORT, config.HOST, (err?: Error) => {
   if (err) {
@@ -36,6 +38,7 @@ async function shutdown(signal: string): Promise<void> {
   stopMailLoop()
   server.close(async () => {
     await fakeSmtp?.close().catch(() => undefined)
+    await stopOptimisePool().catch(() => undefined)
     await sequelize.close().catch(() => undefined)
     clearTimeout(timer)
     process.exit(0)

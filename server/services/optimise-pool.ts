@@ -91,6 +91,8 @@ function leastBusy(): Slot | null {
 }
 
 const cache = new Map<string, OptimiseResult>()
+/** Optimisations under way, by key: a second identical request waits for the first. */
+const inFlight = new Map<string, Promise<OptimiseResult>>()
 function keyOf(c: CaseSI, basis: CostBasisData, search: SearchSpec): string {
   return createHash('sha256').update(JSON.stringify([c, basis, search])).digest('base64url')
 }
@@ -103,6 +105,15 @@ export async function optimiseAsync(c: CaseSI, basis: CostBasisData, search: Sea
     cache.set(key, hit)
     return structuredClone(hit)
   }
+  let running = inFlight.get(key)
+  if (!running) {
+    running = compute(key, c, basis, search).finally(() => inFlight.delete(key))
+    inFlight.set(key, running)
+  }
+  return structuredClone(await running)
+}
+
+async function compute(key: string, c: CaseSI, basis: CostBasisData, search: SearchSpec): Promise<OptimiseResult> {
   const slot = leastBusy()
   let result: OptimiseResult
   if (!slot) {
@@ -117,7 +128,12 @@ export async function optimiseAsync(c: CaseSI, basis: CostBasisData, search: Sea
   }
   cache.set(key, result)
   if (cache.size > CACHE_SIZE) cache.delete(cache.keys().next().value as string)
-  return structuredClone(result)
+  return result
+}
+
+/** Start the workers now, so the first optimisation does not wait for them to load. */
+export function warmOptimisePool(): void {
+  leastBusy()
 }
 
 export async function stopOptimisePool(): Promise<void> {

@@ -89,3 +89,13 @@ describe('authorisation matrix', () => {
     expect((await api().post('/api/v1/auth/logout')).status).toBe(401)
   })
 })
+
+describe('API documentation', () => {
+  it('the README lists every route with its access rule', async () => {
+    const { readFileSync } = await import('node:fs')
+    const { routeRows } = await import('../../scripts/routes.ts')
+    const readme = readFileSync('README.md', 'utf8')
+    const missing = routeRows().filter((row) => !readme.includes(row))
+    expect(missing).toEqual([])
+  })
+})

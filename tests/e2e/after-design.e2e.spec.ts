@@ -134,6 +134,9 @@ describe('review and sign-off', () => {
     // the reviewer sees it in the notifications, cannot return it without a comment, then approves
     await signInAs(p, 'reviewer')
     await p.getByTestId('notifications').click()
+    await p.getByTestId(`notification-${st.id}`).waitFor()
+    await expect(p.getByTestId(`notification-${st.id}`).innerText()).resolves.toMatch(/submitted for review/)
+    await shot(p, 'notifications')
     await p.getByTestId(`notification-${st.id}`).click()
     await p.waitForURL(new RegExp(`/studies/${st.id}/review$`))
     await p.getByTestId('return').click()

@@ -128,7 +128,7 @@ describe('review and sign-off', () => {
     await p.getByTestId('review-panel').getByText('In review', { exact: true }).waitFor()
     await p.getByTestId('review-thread').getByText('submitted for review').waitFor()
     await expect(p.getByTestId('recommended-option').innerText()).resolves.toMatch(/Base design/)
-    await shot(p, 'review-submitted')
+    await shot(p, 'review-panel-submitted')
     await apiSignOut(p)
 
     // the reviewer sees it in the notifications, cannot return it without a comment, then approves
@@ -142,11 +142,11 @@ describe('review and sign-off', () => {
     await p.getByTestId('return').click()
     await p.getByText('Say what needs to change before returning the study.').waitFor()
     await p.getByTestId('decision-comment').locator('textarea').first().fill('Solvent rate agreed; approved as recommended.')
-    await shot(p, 'review-reviewer')
+    await shot(p, 'review-panel-reviewer')
     await p.getByTestId('approve').click()
     await p.getByTestId('review-panel').getByText('Approved', { exact: true }).waitFor()
     await p.getByTestId('review-thread').getByText('Solvent rate agreed; approved as recommended.').waitFor()
-    await shot(p, 'review-approved')
+    await shot(p, 'review-panel-approved')
     await apiSignOut(p)
 
     // the admin opens the outbox from the drawer and finds the approval mail

@@ -56,8 +56,15 @@ export async function openBrowser(): Promise<BrowserSession> {
 /** Sign in through the sign-in page as one of the demo people and wait for the app shell. */
 export async function signIn(page: Page, who: DemoPerson): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`)
-  await page.getByLabel('E-mail').fill(DEMO_EMAILS[who])
-  await page.getByLabel('Password').fill(DEMO_PASSWORD)
+  const email = page.getByLabel('E-mail')
+  const password = page.getByLabel('Password', { exact: true })
+  // On a loaded machine a late focus change can send typing to the wrong field: fill, check, refill.
+  for (let attempt = 0; attempt < 3; attempt++) {
+    await email.fill(DEMO_EMAILS[who])
+    await password.fill(DEMO_PASSWORD)
+    if ((await email.inputValue()) === DEMO_EMAILS[who] && (await password.inputValue()) === DEMO_PASSWORD) break
+    await page.waitForTimeout(300)
+  }
   await page.getByRole('button', { name: /sign in/i }).click()
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 15000 })
 }

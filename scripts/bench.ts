@@ -13,15 +13,16 @@ import { benchDesign } from './bench-design.ts'
 import { benchOptimise } from './bench-optimise.ts'
 
 /**
- * Two runs of 20 connections for 10 s each: every request a different case (the gas flow moves by
- * a little each time, so nothing comes from the result cache), then the same case over and over
- * (what re-opening a study looks like: answered from the cache).
+ * Three runs of 20 connections for 10 s each: the same case over and over (what re-opening a study
+ * looks like: answered from the cache); every request a different case (the gas flow moves by a
+ * little each time, so nothing comes from the cache), with the sensitivity study and without it.
  */
 async function benchApi(url: string, token: string): Promise<Record<string, number>> {
   const example = JSON.parse(readFileSync('data/examples/optimize.json', 'utf8')) as { case: { gas: { flow: number } }; search?: unknown }
   const baseFlow = Number(example.case.gas.flow)
   let n = 0
-  const bodyFor = (flow: number) => JSON.stringify({ case: { ...example.case, gas: { ...example.case.gas, flow } }, search: example.search, costBasis: { preset: 'halvard-cobalt-ridge' } })
+  const bodyFor = (flow: number, sensitivity = true) =>
+    JSON.stringify({ case: { ...example.case, gas: { ...example.case.gas, flow } }, search: { ...(example.search as object), sensitivity }, costBasis: { preset: 'halvard-cobalt-ridge' } })
   const common = {
     url: `${url}/api/v1/designs/optimize`,
     method: 'POST' as const,
@@ -32,8 +33,10 @@ async function benchApi(url: string, token: string): Promise<Record<string, numb
   // The repeated case first: a distinct-case run leaves work queued on the server when it stops.
   const repeated = await autocannon({ ...common, body: bodyFor(baseFlow) })
   const distinct = await autocannon({ ...common, requests: [{ setupRequest: (req) => ({ ...req, body: bodyFor(baseFlow * (1 + 1e-6 * ++n)) }) }] })
+  await new Promise((r) => setTimeout(r, 3000)) // let the server finish what the last run left queued
+  const noSens = await autocannon({ ...common, requests: [{ setupRequest: (req) => ({ ...req, body: bodyFor(baseFlow * (1 + 1e-6 * ++n), false) }) }] })
   const out: Record<string, number> = {}
-  for (const [name, r] of [['distinct cases', distinct], ['repeated case (cache)', repeated]] as const) {
+  for (const [name, r] of [['distinct cases', distinct], ['distinct, no sensitivity', noSens], ['repeated case (cache)', repeated]] as const) {
     out[`api optimise, ${name}: requests/s`] = r.requests.average
     out[`api optimise, ${name}: p50 ms`] = r.latency.p50
     out[`api optimise, ${name}: p97.5 ms`] = r.latency.p97_5

@@ -1,20 +1,9 @@
-/** Cost items of the cost model, in display order, with their kind. */
-export const CAPITAL_ITEMS = ['shell', 'platforms', 'trays', 'pump', 'motor', 'blower'] as const
-export const OPERATING_ITEMS = ['solvent', 'pumpElectricity', 'blowerElectricity', 'lostProduct', 'emissionCharge'] as const
+import { capitalItemKeys, operatingItemKeys, costItemLabels } from '@shared/schemas/costBasis.ts'
 
-export const COST_ITEM_LABELS: Record<string, string> = {
-  shell: 'Shell and heads',
-  platforms: 'Platforms and ladders',
-  trays: 'Trays',
-  pump: 'Solvent pump',
-  motor: 'Pump motor',
-  blower: 'Blower',
-  solvent: 'Solvent make-up / treatment',
-  pumpElectricity: 'Pump electricity',
-  blowerElectricity: 'Blower electricity',
-  lostProduct: 'Lost product',
-  emissionCharge: 'Emission charge',
-}
+/** Cost items of the cost model, in display order, with their kind (defined once, in the shared schema). */
+export const CAPITAL_ITEMS = capitalItemKeys
+export const OPERATING_ITEMS = operatingItemKeys
+export const COST_ITEM_LABELS: Record<string, string> = costItemLabels
 
 export function isCapitalItem(key: string): boolean {
   return (CAPITAL_ITEMS as readonly string[]).includes(key)

@@ -12,7 +12,8 @@
  */
 import { readFileSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
-import { evaluateBatch, evaluateCase, InvalidInputError, InfeasibleDesignError, ConvergenceError, ENGINE_VERSION } from '../engine/index.ts'
+import { reportCliError } from './errors.ts'
+import { evaluateBatch, evaluateCase, InvalidInputError, ENGINE_VERSION } from '../engine/index.ts'
 import type { DesignResult } from '../engine/contract.ts'
 import { priceDesign } from '../engine/costing/index.ts'
 import { costBasisFrom } from './optimize.ts'
@@ -76,22 +77,7 @@ export function main(argv: string[], out: (s: string) => void = (s) => process.s
     out(formatOutput(result))
     return 0
   } catch (e) {
-    if (e instanceof InvalidInputError) {
-      err(`invalid input: ${e.message}\n`)
-      for (const i of e.issues.slice(1, 10)) err(`  ${i.path}: ${i.message}\n`)
-      return 2
-    }
-    if (e instanceof InfeasibleDesignError) {
-      err(`infeasible design:\n`)
-      for (const i of e.issues) err(`  ${i.path} [${i.code}]: ${i.message}\n`)
-      return 2
-    }
-    if (e instanceof ConvergenceError) {
-      err(`no convergence: ${e.message}\n`)
-      return 2
-    }
-    err(`error: ${(e as Error).stack ?? String(e)}\n`)
-    return 1
+    return reportCliError(e, err)
   }
 }
 

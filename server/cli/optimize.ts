@@ -4,14 +4,15 @@
  * FILE: { "case": {...}, "costBasis": {...} | { "preset": "name" } (omitted: the demo basis),
  *         "search": {...} (optional; every field has a default) }
  * Prints { optimum, evaluations, curves, sensitivity, ... } as JSON on stdout.
- * Exit codes: 0 ok; 2 bad input (field path on stderr); 3 no feasible design; 1 other.
+ * Exit codes: 0 ok; 2 bad input (field path on stderr) or no feasible design (the reasons); 1 other.
  * Add --no-sensitivity to skip the tornado (faster).
  */
 import { fileURLToPath } from 'node:url'
-import { caseToSI, ConvergenceError, InfeasibleDesignError, InvalidInputError, invalidFromZod } from '../engine/index.ts'
+import { reportCliError } from './errors.ts'
+import { caseToSI, InvalidInputError, invalidFromZod } from '../engine/index.ts'
 import { DEFAULT_PRESET, hasPreset, listPresets, loadPreset } from '../engine/costing/presets.ts'
 import { optimise } from '../engine/optimisation/optimise.ts'
-import { NoFeasibleDesignError, type OptimiseResult } from '../engine/optimisation/core.ts'
+import type { OptimiseResult } from '../engine/optimisation/core.ts'
 import { costBasisSchema, type CostBasisData } from '../../shared/schemas/costBasis.ts'
 import { searchSpecSchema, type SearchSpec } from '../../shared/schemas/search.ts'
 import { readCaseFile } from './design.ts'
@@ -114,27 +115,7 @@ export function main(
     out(JSON.stringify(result, null, 2) + '\n')
     return 0
   } catch (e) {
-    if (e instanceof InvalidInputError) {
-      err(`invalid input: ${e.message}\n`)
-      for (const i of e.issues.slice(1, 10)) err(`  ${i.path}: ${i.message}\n`)
-      return 2
-    }
-    if (e instanceof InfeasibleDesignError) {
-      err('infeasible:\n')
-      for (const i of e.issues) err(`  ${i.path} [${i.code}]: ${i.message}\n`)
-      return 3
-    }
-    if (e instanceof NoFeasibleDesignError) {
-      err(`no feasible design: ${e.message}\n`)
-      for (const r of e.reasons.slice(0, 10)) err(`  ${r}\n`)
-      return 3
-    }
-    if (e instanceof ConvergenceError) {
-      err(`no convergence: ${e.message}\n`)
-      return 3
-    }
-    err(`error: ${(e as Error).stack ?? String(e)}\n`)
-    return 1
+    return reportCliError(e, err)
   }
 }
 

@@ -92,7 +92,7 @@ describe('npm run optimize -- FILE.json', { timeout: 60_000 }, () => {
 
   it('an unreachable emission limit exits 3 (infeasible)', () => {
     const r = runWith({ ...base, search: { sensitivity: false, emissionLimit: 0.001, recovery: { max: 0.99 } } })
-    expect(r.code).toBe(3)
+    expect(r.code).toBe(2)
     expect(r.err).toContain('search.emissionLimit')
   })
 

@@ -20,8 +20,6 @@ import {
 
 const COST_CAUTION =
   'Costs are study estimates from published correlations (typically ±30 % or wider) escalated by a cost index; confirm with vendor quotations before committing funds.'
-const VESSEL_CAUTION =
-  'Shell thickness and mass are preliminary estimates for costing; the column must be designed to the local pressure-vessel code and checked by a licensed engineer.'
 
 /** Solute entering with the gas, kg/h. */
 export function soluteInKgPerHour(c: CaseSI): number {
@@ -118,7 +116,8 @@ export function optimiseWith(
       feasibleFraction: ev.raw.size > 0 ? feasibleCount / ev.raw.size : 0,
       ms: { search: t1 - t0, curves: t2 - t1, sensitivity: t3 - t2 },
     },
-    cautions: [...new Set([COST_CAUTION, VESSEL_CAUTION, ...d.cautions])],
+    // The design already carries the preliminary-vessel and hazard cautions.
+    cautions: [...new Set([COST_CAUTION, ...d.cautions])],
   }
 }
 

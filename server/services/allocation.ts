@@ -1,7 +1,8 @@
-import { Study, StudyOption, Run, SolventAllocation } from '../db/models/index.ts'
+import { Study, Run, SolventAllocation } from '../db/models/index.ts'
 import { NotFoundError, InfeasibleError, ValidationError } from '../errors.ts'
 import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
+import { recommendedRun, designSummaryOf } from './studies.ts'
 import { costDesign } from '../engine/costing/index.ts'
 import { allocateSolvent, type AllocationUnit } from '../engine/allocation/solvent.ts'
 import type { DesignSummary } from '../engine/contract.ts'
@@ -11,15 +12,8 @@ import type { AuthUser } from '../types.d.ts'
 
 /** The design a study stands for: its recommended option, else its newest run. */
 async function designOf(s: Study): Promise<DesignSummary | null> {
-  let run: Run | null = null
-  if (s.recommendedOptionId) {
-    const o = await StudyOption.findByPk(s.recommendedOptionId)
-    if (o) run = await Run.findByPk(o.runId)
-  }
-  run ??= await Run.findOne({ where: { studyId: s.id }, order: [['id', 'DESC']] })
-  if (!run) return null
-  const r = run.result as { summary?: DesignSummary; optimum?: { design: { summary: DesignSummary } } }
-  return r.summary ?? r.optimum?.design.summary ?? null
+  const run = (await recommendedRun(s)) ?? (await Run.findOne({ where: { studyId: s.id }, order: [['id', 'DESC']] }))
+  return run ? designSummaryOf(run.result) : null
 }
 
 export async function solve(siteId: number, body: AllocationBody, actor: AuthUser, requestId: string) {

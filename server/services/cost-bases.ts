@@ -1,20 +1,14 @@
 import { Op, type Transaction } from 'sequelize'
 import { sequelize } from '../db/sequelize.ts'
-import { CostBasis, User } from '../db/models/index.ts'
+import { CostBasis } from '../db/models/index.ts'
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts'
 import { zodDetails } from '../middleware/error-handler.ts'
 import { audit } from './audit.ts'
+import { userNames } from './people.ts'
 import { costBasisSchema, type CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { CostBasisVersionView } from '../../shared/schemas/costBases.ts'
 import { loadPreset, hasPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
 import type { AuthUser } from '../types.d.ts'
-
-async function names(ids: (number | null)[]): Promise<Map<number, string>> {
-  const list = ids.filter((x): x is number => x !== null)
-  if (!list.length) return new Map()
-  const users = await User.findAll({ where: { id: list }, attributes: ['id', 'name'] })
-  return new Map(users.map((u) => [u.id, u.name]))
-}
 
 function view(b: CostBasis, who: Map<number, string>): CostBasisVersionView {
   return {
@@ -36,14 +30,14 @@ function view(b: CostBasis, who: Map<number, string>): CostBasisVersionView {
 
 export async function listVersions(siteId: number): Promise<CostBasisVersionView[]> {
   const rows = await CostBasis.findAll({ where: { siteId }, order: [['version', 'DESC']], attributes: { exclude: ['data'] } })
-  const who = await names(rows.flatMap((r) => [r.createdBy, r.publishedBy]))
+  const who = await userNames(rows.flatMap((r) => [r.createdBy, r.publishedBy]))
   return rows.map((r) => view(r, who))
 }
 
 export async function getVersion(siteId: number, id: number): Promise<CostBasisVersionView & { data: CostBasisData }> {
   const b = await CostBasis.findOne({ where: { id, siteId } })
   if (!b) throw new NotFoundError('Cost basis')
-  const who = await names([b.createdBy, b.publishedBy])
+  const who = await userNames([b.createdBy, b.publishedBy])
   return { ...view(b, who), data: b.data as CostBasisData }
 }
 

@@ -1,13 +1,14 @@
 import { UniqueConstraintError } from 'sequelize'
 import Papa from 'papaparse'
 import { sequelize } from '../db/sequelize.ts'
-import { OperatingEntry, Study, StudyOption, Run, CostBasis } from '../db/models/index.ts'
+import { OperatingEntry, Study, Run } from '../db/models/index.ts'
 import { ConflictError, NotFoundError, ValidationError, InfeasibleError, type ErrorDetail } from '../errors.ts'
 import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
 import { siteLibrary } from './runs.ts'
+import { recommendedRun, designSummaryOf } from './studies.ts'
 import { parseCase } from './engine-gateway.ts'
-import { costDesign } from '../engine/costing/index.ts'
+import { costDesign, type CostBreakdown } from '../engine/costing/index.ts'
 import { priceMonth, type MonthResult } from '../engine/tracking/operating.ts'
 import { operatingEntryBody, type OperatingEntryBody } from '../../shared/schemas/operating.ts'
 import type { DesignSummary } from '../engine/contract.ts'
@@ -40,11 +41,9 @@ async function approvedDesign(s: Study): Promise<{ summary: DesignSummary; run: 
   if (s.status !== 'approved' || !s.recommendedOptionId) {
     throw new InfeasibleError('Operating costs are tracked against an approved study.', [{ path: 'study.status', message: `is ${s.status}`, code: 'notApproved' }])
   }
-  const opt = await StudyOption.findByPk(s.recommendedOptionId)
-  const run = opt ? await Run.findByPk(opt.runId) : null
+  const run = await recommendedRun(s)
   if (!run) throw new NotFoundError('Recommended option')
-  const r = run.result as { summary?: DesignSummary; optimum?: { design: { summary: DesignSummary } } }
-  const summary = r.summary ?? r.optimum?.design.summary
+  const summary = designSummaryOf(run.result)
   if (!summary) throw new NotFoundError('Design of the recommended option')
   return { summary, run }
 }
@@ -58,18 +57,20 @@ export async function listEntries(siteId: number, studyId: number) {
     const d = await approvedDesign(s)
     design = { summary: d.summary, runId: d.run.id, costBasisVersion: d.run.costBasisVersion }
     const c = parseCase(d.run.inputs, await siteLibrary(siteId), 'inputs')
-    const bases = new Map<number, CostBasis>()
+    // Months under the same cost-basis version price the design the same way: cost it once per version.
+    const designCosts = new Map<number, CostBreakdown>()
     months = []
     for (const e of entries) {
       const b = await basisInForce(siteId, e.month)
       if (!b) throw new InfeasibleError('No published cost basis to price the month with.', [{ path: 'costBasis', message: 'none is published', code: 'noCostBasis' }])
-      bases.set(b.id, b)
       const basis = b.data as CostBasisData
+      let designCost = designCosts.get(b.id)
+      if (!designCost) designCosts.set(b.id, (designCost = costDesign(d.summary, basis)))
       const m = priceMonth(
         { month: e.month, gasFlow: e.gasFlow, solventFlow: e.solventFlow, outletMoleFraction: e.outletMoleFraction, recovery: e.recovery, powerKw: e.powerKw },
         {
           design: d.summary,
-          designCost: costDesign(d.summary, basis),
+          designCost,
           inletMoleFraction: c.gas.soluteMoleFraction,
           soluteMolarMass: c.solute.molarMass * 1000,
           operatingHoursPerYear: basis.general.operatingHours,

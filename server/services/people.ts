@@ -8,6 +8,14 @@ import type { AuthUser } from '../types.d.ts'
 import type { Role } from '../../shared/schemas/common.ts'
 import type { AdminUserRow, CreateUserBody, MemberRow, SiteView } from '../../shared/schemas/identity.ts'
 
+/** Names of people by id (for 'created by' columns); unknown and null ids are left out. */
+export async function userNames(ids: (number | null)[]): Promise<Map<number, string>> {
+  const list = [...new Set(ids.filter((x): x is number => x !== null))]
+  if (!list.length) return new Map()
+  const users = await User.findAll({ where: { id: list }, attributes: ['id', 'name'] })
+  return new Map(users.map((u) => [u.id, u.name]))
+}
+
 export async function listMySites(user: AuthUser): Promise<SiteView[]> {
   const sites = user.isAdmin ? await Site.findAll() : await Site.findAll({ where: { id: [...user.roles.keys()] } })
   return sites

@@ -1,5 +1,6 @@
 import { Run, ReviewEvent, Site } from '../db/models/index.ts'
-import { findStudy, listOptions, userNames } from './studies.ts'
+import { findStudy, listOptions } from './studies.ts'
+import { userNames } from './people.ts'
 import { QUANTITY_KINDS } from '../../shared/units.ts'
 import type { DesignResult, DesignSummary, CheckResult } from '../engine/contract.ts'
 import type { CostBreakdown } from '../engine/costing/index.ts'

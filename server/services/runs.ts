@@ -1,9 +1,10 @@
 import { sequelize } from '../db/sequelize.ts'
-import { Run, Study, CostBasis, SiteComponent } from '../db/models/index.ts'
+import { Run, Study, SiteComponent } from '../db/models/index.ts'
 import { ConflictError, NotFoundError, InfeasibleError } from '../errors.ts'
 import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
-import { EDITABLE, runRow, userNames, headline } from './studies.ts'
+import { EDITABLE, runRow, headline } from './studies.ts'
+import { userNames } from './people.ts'
 import { libraryWith, parseCase, parseSearch, runDesign, runOptimiseAsync, assertFinite } from './engine-gateway.ts'
 import { ENGINE_VERSION } from './engine-version.ts'
 import type { ComponentLibrary, LibraryComponent } from '../engine/case.ts'
@@ -97,8 +98,4 @@ export async function compareWithCurrent(siteId: number, studyId: number, runId:
     changes,
     result: fresh,
   }
-}
-
-export async function basisRowById(id: number): Promise<CostBasis | null> {
-  return CostBasis.findByPk(id)
 }

@@ -3,9 +3,11 @@ import { sequelize } from '../db/sequelize.ts'
 import { Study, User, Run, StudyOption, StudyView } from '../db/models/index.ts'
 import { ConflictError, NotFoundError, ForbiddenError } from '../errors.ts'
 import { audit } from './audit.ts'
+import { userNames } from './people.ts'
 import type { AuthUser } from '../types.d.ts'
 import type { Role, StudyStatus } from '../../shared/schemas/common.ts'
 import type { StudyRow, RunRow, OptionRow } from '../../shared/schemas/studies.ts'
+import type { DesignSummary } from '../engine/contract.ts'
 
 /** What the caller may do with a study, for the client to show or hide controls. */
 export interface StudyPermissions {
@@ -123,13 +125,6 @@ export async function getStudy(siteId: number, studyId: number, user: AuthUser) 
   }
 }
 
-export async function userNames(ids: (number | null)[]): Promise<Map<number, string>> {
-  const list = [...new Set(ids.filter((x): x is number => x !== null))]
-  if (!list.length) return new Map()
-  const users = await User.findAll({ where: { id: list }, attributes: ['id', 'name'] })
-  return new Map(users.map((u) => [u.id, u.name]))
-}
-
 export async function createStudy(
   siteId: number,
   body: { name: string; description: string; inputs: unknown; search?: Record<string, unknown> },
@@ -221,14 +216,27 @@ export async function listOptions(studyId: number): Promise<OptionRow[]> {
   })
 }
 
+/** The design summary of a stored result: a design run's own, or an optimisation's optimum. */
+export function designSummaryOf(result: unknown): DesignSummary | null {
+  const r = result as { summary?: DesignSummary; optimum?: { design?: { summary?: DesignSummary } } } | null
+  return r?.summary ?? r?.optimum?.design?.summary ?? null
+}
+
+/** The run behind a study's recommended option, if it has one. */
+export async function recommendedRun(s: Study): Promise<Run | null> {
+  if (!s.recommendedOptionId) return null
+  const o = await StudyOption.findByPk(s.recommendedOptionId)
+  return o ? Run.findByPk(o.runId) : null
+}
+
 /** The headline numbers of a stored result (design or optimum). */
 export function headline(result: unknown): Record<string, number> | null {
-  const r = result as { summary?: Record<string, unknown>; optimum?: { design?: { summary?: Record<string, unknown> }; totalAnnualCost?: number }; totalAnnualCost?: number } | null
-  const summary = r?.summary ?? r?.optimum?.design?.summary
+  const summary = designSummaryOf(result)
   if (!summary) return null
+  const r = result as { optimum?: { totalAnnualCost?: number }; totalAnnualCost?: number }
   const out: Record<string, number> = {}
   for (const [k, v] of Object.entries(summary)) if (typeof v === 'number' && Number.isFinite(v)) out[k] = v
-  const tac = r?.totalAnnualCost ?? r?.optimum?.totalAnnualCost
+  const tac = r.totalAnnualCost ?? r.optimum?.totalAnnualCost
   if (typeof tac === 'number') out.totalAnnualCost = tac
   return out
 }

@@ -6,7 +6,7 @@ import { AppError, ConflictError, NotFoundError, ValidationError, type ErrorDeta
 import { zodDetails } from '../middleware/error-handler.ts'
 import { audit } from './audit.ts'
 import { basisInForce, getVersion } from './cost-bases.ts'
-import { userNames } from './studies.ts'
+import { userNames } from './people.ts'
 import { costFromCurve, loadPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
 import { fitCostCurve, FitError, logSpacedSizes, costFromFit, type FitForm } from '../engine/fitting/index.ts'
 import { costBasisSchema, type CostBasisData, type CostCurveData } from '../../shared/schemas/costBasis.ts'

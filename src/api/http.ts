@@ -155,6 +155,16 @@ export function fieldErrors(err: unknown, stripPrefixes: string[] = []): Record<
   return out
 }
 
+/**
+ * Field errors from a client-side check with a shared zod schema, keyed by field path the same
+ * way as fieldErrors (optionally under a prefix such as 'search').
+ */
+export function issueErrors(issues: readonly { path: readonly PropertyKey[]; message: string }[], prefix: readonly string[] = []): Record<string, string[]> {
+  const out: Record<string, string[]> = {}
+  for (const i of issues) (out[[...prefix, ...i.path.map(String)].join('.')] ??= []).push(i.message)
+  return out
+}
+
 /** A sentence for an alert: the message plus any details not shown on a field. */
 export function errorText(err: unknown): string {
   if (err instanceof ApiError) {

@@ -1,7 +1,7 @@
 import { computed, ref, shallowRef, watch } from 'vue'
 import { studiesApi } from '@/api/studies.ts'
 import { designsApi } from '@/api/designs.ts'
-import { ApiError, fieldErrors } from '@/api/http.ts'
+import { ApiError, fieldErrors, issueErrors } from '@/api/http.ts'
 import { designOf, isOptimizeResult, type CaseInput, type ComponentEntry, type RunView, type StudyView } from '@/api/types.ts'
 import type { AsyncStatus } from './useAsync.ts'
 import { searchSpecSchema } from '@shared/schemas/search.ts'
@@ -14,10 +14,7 @@ function clone<T>(v: T): T {
 async function validateCase(c: CaseInput): Promise<Record<string, string[]>> {
   const { caseSchema } = await import('@shared/schemas/case.ts')
   const parsed = caseSchema.safeParse(c)
-  const out: Record<string, string[]> = {}
-  if (parsed.success) return out
-  for (const issue of parsed.error.issues) (out[issue.path.join('.')] ??= []).push(issue.message)
-  return out
+  return parsed.success ? {} : issueErrors(parsed.error.issues)
 }
 
 /**
@@ -116,9 +113,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
     errors.value = await validateCase(draft.value)
     if (!name.value.trim()) errors.value.name = ['Give the study a name.']
     const searchCheck = searchSpecSchema.safeParse(search.value)
-    if (!searchCheck.success) {
-      for (const issue of searchCheck.error.issues) (errors.value[['search', ...issue.path].join('.')] ??= []).push(issue.message)
-    }
+    if (!searchCheck.success) Object.assign(errors.value, issueErrors(searchCheck.error.issues, ['search']))
     if (Object.keys(errors.value).length > 0) {
       actionError.value = new ApiError(400, 'validation', 'Some inputs need attention (marked on the fields).')
       return false

@@ -8,13 +8,19 @@ export default mergeConfig(
   defineConfig({
     test: {
       projects: [
-        { extends: true, test: { name: 'engine', environment: 'node', include: ['tests/engine/**/*.spec.ts'] } },
+        {
+          extends: true,
+          test: { name: 'engine', environment: 'node', include: ['tests/engine/**/*.spec.ts'], testTimeout: 60000 },
+        },
         {
           extends: true,
           test: {
             name: 'unit',
             environment: 'happy-dom',
             include: ['tests/client/**/*.spec.ts'],
+            // The first test of a file loads Vuetify and the units library; on a busy 2-core machine
+            // that alone can pass vitest's 5 s default. A generous limit is not a timing check.
+            testTimeout: 30000,
             server: { deps: { inline: ['vuetify'] } },
           },
         },

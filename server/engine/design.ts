@@ -66,7 +66,7 @@ export const DESIGN_REFERENCES: readonly string[] = Object.freeze([
   'codata2018',
   'iapwsR176',
   'kell1975',
-  'waterViscosityVogel',
+  'iapws2008viscosity',
   'sander2015',
   'kremser1930',
   'benitez2009',

@@ -16,7 +16,7 @@ const s: DesignSummary = {
   diameter: 1.42, selectedDiameter: 1.45, pressureDropPerTray: 750, columnPressureDrop: 8250, columnHeight: 10.6,
   recovery: 0.985, solventFactor: 1.5, floodFraction: 0.78, gasFlow: 420, gasVolumetricFlow: 2.65, solventMassFlow: 1620,
   solventVolumetricFlow: 1.63, soluteInGas: 290, soluteAbsorbed: 285.65, soluteLost: 4.35, operatingPressure: 115000,
-  designPressure: 180000, shellThickness: 0.0075, shellMass: 3200, percentFlood: 76,
+  designPressure: 180000, shellThickness: 0.0075, shellMass: 3200, percentFlood: 76, fractionOfFloodTarget: 0.75,
 }
 
 describe('regression snapshot (own output, not a reference): demo cost bases', () => {

@@ -179,6 +179,7 @@ function summary(over: Partial<DesignSummary> = {}): DesignSummary {
     shellThickness: 0.3125 * IN,
     shellMass: 10897 * LB,
     percentFlood: 72,
+    fractionOfFloodTarget: 0.75,
     ...over,
   }
 }

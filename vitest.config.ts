@@ -8,7 +8,7 @@ export default mergeConfig(
   defineConfig({
     test: {
       projects: [
-        { extends: true, test: { name: 'engine', environment: 'node', include: ['tests/engine/**/*.spec.ts'] } },
+        { extends: true, test: { name: 'engine', environment: 'node', include: ['tests/engine/**/*.spec.ts', 'tests/shared/**/*.spec.ts'] } },
         {
           extends: true,
           test: {

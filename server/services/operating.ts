@@ -62,7 +62,7 @@ export async function listEntries(siteId: number, studyId: number) {
     months = []
     for (const e of entries) {
       const b = await basisInForce(siteId, e.month)
-      if (!b) throw new InfeasibleError('No published cost basis to price the month with.', [{ path: 'costBasis', message: 'none is published', code: 'noCostBasis' }])
+      if (!b) throw new InfeasibleError(`No cost-basis version is in force on ${e.month}.`, [{ path: 'costBasis', message: 'no published version is effective on or before that month', code: 'noCostBasis' }])
       const basis = b.data as CostBasisData
       let designCost = designCosts.get(b.id)
       if (!designCost) designCosts.set(b.id, (designCost = costDesign(d.summary, basis)))

@@ -1,6 +1,7 @@
 import { Run, ReviewEvent, Site } from '../db/models/index.ts'
 import { findStudy, listOptions } from './studies.ts'
 import { userNames } from './people.ts'
+import { basisInForce } from './cost-bases.ts'
 import { QUANTITY_KINDS } from '../../shared/units.ts'
 import type { DesignResult, DesignSummary, CheckResult } from '../engine/contract.ts'
 import type { CostBreakdown } from '../engine/costing/index.ts'
@@ -66,6 +67,8 @@ export interface ReviewRow {
 export interface ReportModel {
   generatedAt: Date
   generatedBy: string
+  /** The cost-basis version in force on the report date (the runs keep the version they were priced with). */
+  costBasisInForce: { version: number; effectiveDate: string | null } | null
   site: { id: number; name: string }
   study: { id: number; name: string; description: string; status: string; revision: number; ownerName: string; updatedAt: Date }
   inputs: ValueRow[]
@@ -296,8 +299,11 @@ export async function buildReport(siteId: number, studyId: number, generatedBy: 
     : null
 
   const currency = breakdown?.currency ?? opt?.optimum.breakdown.currency ?? ''
+  const generatedAt = new Date()
+  const inForce = await basisInForce(siteId)
   return {
-    generatedAt: new Date(),
+    generatedAt,
+    costBasisInForce: inForce ? { version: inForce.version, effectiveDate: inForce.effectiveDate } : null,
     generatedBy,
     site: { id: siteId, name: site?.name ?? `Site ${siteId}` },
     study: {

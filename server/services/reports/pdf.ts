@@ -212,6 +212,7 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
     ['Design run', runLine(designRun)],
     ['Optimisation run', runLine(m.optimise?.run)],
     ['Cost basis version', versions((r) => (r.costBasisVersion === null ? 'none' : `version ${r.costBasisVersion}`))],
+    ['Cost basis in force', m.costBasisInForce ? `version ${m.costBasisInForce.version}, effective ${m.costBasisInForce.effectiveDate ?? ''}` : 'none'],
     ['Engine version', versions((r) => r.engineVersion)],
   ])
   if (!m.design && !m.optimise) {

@@ -1,8 +1,7 @@
 import { Router, type Request, type Response, type RequestHandler } from 'express'
 import type { ZodType } from 'zod'
 import { authenticate } from '../services/auth.ts'
-import { ForbiddenError, UnauthenticatedError, ValidationError } from '../errors.ts'
-import { zodDetails } from '../middleware/error-handler.ts'
+import { ForbiddenError, UnauthenticatedError, ValidationError, zodDetails } from '../errors.ts'
 import type { Role } from '../../shared/schemas/common.ts'
 
 /**

@@ -3,7 +3,7 @@ import { rateLimit } from 'express-rate-limit'
 import { defineRoutes, parse, ANY_ROLE, SESSION_COOKIE, type RouteSpec } from './define.ts'
 import { signIn, signOut, userView } from '../services/auth.ts'
 import * as people from '../services/people.ts'
-import { AuditEntry } from '../db/models/index.ts'
+import { listAudit } from '../services/audit.ts'
 import { loginBody, createUserBody, createSiteBody, setMembershipBody, updateMeBody } from '../../shared/schemas/identity.ts'
 import { idParam, pagingQuery } from '../../shared/schemas/common.ts'
 import { TooManyRequestsError } from '../errors.ts'
@@ -51,8 +51,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     {
       method: 'patch', path: '/auth/me', access: { kind: 'signedIn' }, summary: 'Change own name or unit system',
       handler: async (req, res) => {
-        await people.updateMe(req.user!.id, parse(updateMeBody, req.body))
-        res.json(await userView(req.user!.id))
+        res.status(200).json(await people.updateMe(req.user!.id, parse(updateMeBody, req.body)))
       },
     },
     {
@@ -84,13 +83,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'get', path: '/sites/:siteId/audit', access: { kind: 'site', roles: ['admin'] }, summary: 'The site audit log, newest first',
-      handler: async (req) => {
-        const q = parse(pagingQuery, req.query, 'query')
-        const { rows, count } = await AuditEntry.findAndCountAll({
-          where: { siteId: req.site!.id }, order: [['id', 'DESC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize,
-        })
-        return { items: rows.map((r) => r.get({ plain: true })), total: count, page: q.page, pageSize: q.pageSize }
-      },
+      handler: (req) => listAudit(req.site!.id, parse(pagingQuery, req.query, 'query')),
     },
     {
       method: 'get', path: '/people', access: { kind: 'systemAdmin' }, summary: 'Everyone, with memberships',

@@ -1,9 +1,7 @@
 import type { Router } from 'express'
 import { defineRoutes, parse, ANY_ROLE } from './define.ts'
 import * as review from '../services/review.ts'
-import { capturedMail } from '../mail/fake-smtp.ts'
-import { MailMessage } from '../db/models/index.ts'
-import { NotFoundError } from '../errors.ts'
+import { outbox } from '../services/outbox.ts'
 import { idParam } from '../../shared/schemas/common.ts'
 import { submitBody, approveBody, returnBody, commentBody } from '../../shared/schemas/review.ts'
 import type { Config } from '../config.ts'
@@ -56,14 +54,7 @@ export function reviewRoutes(router: Router, cfg: Config): Router {
     {
       method: 'get', path: '/outbox', access: { kind: 'systemAdmin' },
       summary: 'Development only: mail captured by the local fake mail server, and the delivery queue',
-      handler: async () => {
-        if (cfg.MAIL_MODE !== 'fake') throw new NotFoundError('Outbox')
-        const queue = await MailMessage.findAll({ order: [['id', 'DESC']], limit: 200 })
-        return {
-          captured: capturedMail(),
-          queue: queue.map((m) => ({ id: m.id, to: m.toAddress, subject: m.subject, status: m.status, attempts: m.attempts, lastError: m.lastError, createdAt: m.createdAt.toISOString(), sentAt: m.sentAt ? m.sentAt.toISOString() : null })),
-        }
-      },
+      handler: () => outbox(cfg.MAIL_MODE),
     },
   ])
 }

@@ -52,10 +52,7 @@ export function studyRoutes(router: Router): Router {
     },
     {
       method: 'get', path: '/sites/:siteId/studies/:studyId/options', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Pinned options with headline numbers',
-      handler: async (req) => {
-        await svc.findStudy(req.site!.id, study(req.params.studyId))
-        return svc.listOptions(study(req.params.studyId))
-      },
+      handler: (req) => svc.studyOptions(req.site!.id, study(req.params.studyId)),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/options', access: { kind: 'site', roles: ['engineer'] }, summary: 'Pin a run as a named option',

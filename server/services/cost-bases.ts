@@ -1,14 +1,13 @@
 import type { Transaction } from 'sequelize'
 import { sequelize } from '../db/sequelize.ts'
 import { CostBasis } from '../db/models/index.ts'
-import { AppError, ConflictError, NotFoundError, ValidationError } from '../errors.ts'
-import { zodDetails } from '../middleware/error-handler.ts'
+import { AppError, ConflictError, NotFoundError, ValidationError, zodDetails } from '../errors.ts'
 import { audit } from './audit.ts'
 import { userNames } from './people.ts'
 import { costBasisSchema, type CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { CostBasisVersionView } from '../../shared/schemas/costBases.ts'
 import { versionInForce, earlierDateImpact, isoDate } from '../../shared/costBasisInForce.ts'
-import { loadPreset, hasPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
+import { loadPreset, hasPreset, listPresets, DEFAULT_PRESET } from '../engine/costing/index.ts'
 import type { AuthUser } from '../types.d.ts'
 
 function view(b: CostBasis, who: Map<number, string>, inForceId: number | null): CostBasisVersionView {
@@ -60,6 +59,21 @@ export async function getVersion(siteId: number, id: number): Promise<CostBasisV
 export async function basisInForce(siteId: number, on: string = isoDate(), transaction?: Transaction): Promise<CostBasis | null> {
   const chosen = versionInForce(await publishedVersions(siteId, transaction), on)
   return chosen ? CostBasis.findByPk(chosen.id, { transaction }) : null
+}
+
+export { listPresets }
+
+/** One shipped preset in full (404 for an unknown key). */
+export function presetByKey(key: string): CostBasisData {
+  if (!hasPreset(key)) throw new NotFoundError('Preset')
+  return loadPreset(key)
+}
+
+/** The version in force today, with its data (404 when none is). */
+export async function currentVersion(siteId: number): Promise<CostBasisVersionView & { data: CostBasisData }> {
+  const b = await basisInForce(siteId)
+  if (!b) throw new NotFoundError('Published cost basis')
+  return getVersion(siteId, b.id)
 }
 
 export async function createDraft(

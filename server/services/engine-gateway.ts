@@ -9,8 +9,7 @@ import { optimise } from '../engine/optimisation/index.ts'
 import { optimiseAsync } from './optimise-pool.ts'
 import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
 import type { DesignResult } from '../engine/contract.ts'
-import { ValidationError, InfeasibleError, AppError } from '../errors.ts'
-import { zodDetails } from '../middleware/error-handler.ts'
+import { ValidationError, InfeasibleError, AppError, zodDetails } from '../errors.ts'
 import baseLibraryJson from '../../data/components.json' with { type: 'json' }
 
 /**

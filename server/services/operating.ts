@@ -2,7 +2,7 @@ import { UniqueConstraintError } from 'sequelize'
 import Papa from 'papaparse'
 import { sequelize } from '../db/sequelize.ts'
 import { OperatingEntry, Study, Run } from '../db/models/index.ts'
-import { ConflictError, NotFoundError, ValidationError, InfeasibleError, type ErrorDetail } from '../errors.ts'
+import { ConflictError, NotFoundError, ValidationError, InfeasibleError, type ErrorDetail, zodDetails } from '../errors.ts'
 import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
 import { siteLibrary } from './runs.ts'
@@ -14,7 +14,6 @@ import { operatingEntryBody, type OperatingEntryBody } from '../../shared/schema
 import type { DesignSummary } from '../engine/contract.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { AuthUser } from '../types.d.ts'
-import { zodDetails } from '../middleware/error-handler.ts'
 
 function entryView(e: OperatingEntry) {
   return {

@@ -198,6 +198,12 @@ export async function archiveStudy(siteId: number, studyId: number, actor: AuthU
   return getStudy(siteId, studyId, actor)
 }
 
+/** The pinned options of a study of the site (404 when the study is not the site's). */
+export async function studyOptions(siteId: number, studyId: number): Promise<OptionRow[]> {
+  await findStudy(siteId, studyId)
+  return listOptions(studyId)
+}
+
 export async function listOptions(studyId: number): Promise<OptionRow[]> {
   const opts = await StudyOption.findAll({ where: { studyId }, order: [['id', 'ASC']], include: [{ model: Run, as: 'run' }] })
   const who = await userNames(opts.map((o) => (o as StudyOption & { run: Run }).run.createdBy))

@@ -1,6 +1,6 @@
 import PDFDocument from 'pdfkit'
-import type { ReportModel, CurveSeries } from '../reports.ts'
-import { fmt, money } from '../reports.ts'
+import type { ReportModel, CurveSeries } from './model.ts'
+import { fmt, money } from './format.ts'
 
 /**
  * The printable study report (A4, built-in Helvetica: nothing is loaded from outside).

@@ -9,11 +9,11 @@
  */
 import { fileURLToPath } from 'node:url'
 import { reportCliError } from './errors.ts'
-import { caseToSI } from '../engine/index.ts'
+import { caseToSI, InvalidInputError } from '../engine/index.ts'
 import { optimise } from '../engine/optimisation/optimise.ts'
 import type { OptimiseResult } from '../engine/optimisation/core.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
-import { readCaseFile, costBasisFrom, searchFrom } from './input.ts'
+import { readCaseFile, costBasisFrom, searchFrom, isObject } from './input.ts'
 
 /** The JSON printed by the command (the full design of the optimum is left out; see `design`). */
 export function optimizeOutput(res: OptimiseResult, basis: CostBasisData) {

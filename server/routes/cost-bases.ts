@@ -30,10 +30,12 @@ export function costBasisRoutes(router: Router): Router {
     },
     {
       method: 'post', path: '/sites/:siteId/cost-bases', access: { kind: 'site', roles: EDITORS }, summary: 'Start a draft (from the newest version, another version or a preset)',
+      doc: { body: createCostBasisBody },
       handler: (req) => svc.createDraft(req.site!.id, parse(createCostBasisBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'put', path: '/sites/:siteId/cost-bases/:id', access: { kind: 'site', roles: EDITORS }, summary: 'Edit a draft (optimistic locking on lockVersion)',
+      doc: { body: updateCostBasisBody },
       handler: (req) => svc.updateDraft(req.site!.id, parse(idParam, req.params.id, 'params.id'), parse(updateCostBasisBody, req.body), req.user!, req.requestId),
     },
     {
@@ -44,10 +46,9 @@ export function costBasisRoutes(router: Router): Router {
     },
     {
       method: 'post', path: '/sites/:siteId/cost-bases/:id/publish', access: { kind: 'site', roles: EDITORS }, summary: 'Publish a draft with an effective date; it becomes immutable',
-      handler: async (req, res) => {
-        const out = await svc.publish(req.site!.id, parse(idParam, req.params.id, 'params.id'), parse(publishCostBasisBody, req.body), req.user!, req.requestId)
-        res.status(200).json(out)
-      },
+      status: 200,
+      doc: { body: publishCostBasisBody },
+      handler: (req) => svc.publish(req.site!.id, parse(idParam, req.params.id, 'params.id'), parse(publishCostBasisBody, req.body), req.user!, req.requestId),
     },
   ])
 }

@@ -2,6 +2,17 @@ import type { Router } from 'express'
 import { z } from 'zod'
 import { defineRoutes, parse } from './define.ts'
 import * as svc from '../services/designs.ts'
+import { pricedDesignSchema, optimisationResultSchema } from '../../shared/schemas/results.ts'
+import { caseSchema } from '../../shared/schemas/case.ts'
+import { searchSpecSchema } from '../../shared/schemas/search.ts'
+
+const siteAndBasis = {
+  siteId: z.number().int().positive().optional().meta({ description: "Use this site's components and the cost basis in force" }),
+  costBasis: z.unknown().optional().meta({ description: 'A full cost basis, or { "preset": "key" }' }),
+}
+/** The documented request forms (the case may also be sent bare, or as { cases: [...] } for a batch). */
+const evaluateRequest = z.looseObject({ case: caseSchema, ...siteAndBasis })
+const optimiseRequest = z.looseObject({ case: caseSchema, search: searchSpecSchema.optional(), ...siteAndBasis })
 
 export function designRoutes(router: Router): Router {
   return defineRoutes(router, [
@@ -15,16 +26,16 @@ export function designRoutes(router: Router): Router {
     {
       method: 'post', path: '/designs/evaluate', access: { kind: 'signedIn' },
       summary: 'Design one case, { case, costBasis? , siteId? } or { cases: [...] } (stateless)',
-      handler: async (req, res) => {
-        res.status(200).json(await svc.evaluate(req.user!, req.body))
-      },
+      status: 200,
+      doc: { body: evaluateRequest, response: z.union([pricedDesignSchema, z.array(pricedDesignSchema)]) },
+      handler: (req) => svc.evaluate(req.user!, req.body),
     },
     {
       method: 'post', path: '/designs/optimize', access: { kind: 'signedIn' },
       summary: 'Lowest-cost design of { case, costBasis?, search?, siteId? } with curves and sensitivity (stateless)',
-      handler: async (req, res) => {
-        res.status(200).json(await svc.optimiseCase(req.user!, req.body))
-      },
+      status: 200,
+      doc: { body: optimiseRequest, response: optimisationResultSchema },
+      handler: (req) => svc.optimiseCase(req.user!, req.body),
     },
   ])
 }

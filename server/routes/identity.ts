@@ -8,6 +8,7 @@ import { loginBody, createUserBody, createSiteBody, setMembershipBody, updateMeB
 import { idParam, pagingQuery } from '../../shared/schemas/common.ts'
 import { TooManyRequestsError } from '../errors.ts'
 import type { Config } from '../config.ts'
+import { openApiDocument } from '../openapi.ts'
 
 export function identityRoutes(router: Router, cfg: Config): Router {
   const loginLimiter = rateLimit({
@@ -25,8 +26,14 @@ export function identityRoutes(router: Router, cfg: Config): Router {
       handler: () => ({ status: 'ok', service: 'scrubwright' }),
     },
     {
+      method: 'get', path: '/openapi.json', access: { kind: 'public' }, summary: 'This API described as OpenAPI 3.1 (browsable at /api/v1/docs/)',
+      handler: () => openApiDocument(),
+    },
+    {
       method: 'post', path: '/auth/login', access: { kind: 'public' }, summary: 'Sign in with e-mail and password',
       before: [loginLimiter],
+      status: 200,
+      doc: { body: loginBody },
       handler: async (req, res) => {
         const body = parse(loginBody, req.body)
         const session = await signIn(body.email, body.password, req.requestId)
@@ -38,6 +45,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'post', path: '/auth/logout', access: { kind: 'signedIn' }, summary: 'Sign out (ends every session of this person)',
+      status: 204,
       handler: async (req, res) => {
         await signOut(req.user!.id, req.requestId)
         res.clearCookie(SESSION_COOKIE, { path: '/api' })
@@ -50,9 +58,9 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'patch', path: '/auth/me', access: { kind: 'signedIn' }, summary: 'Change own name or unit system',
-      handler: async (req, res) => {
-        res.status(200).json(await people.updateMe(req.user!.id, parse(updateMeBody, req.body)))
-      },
+      status: 200,
+      doc: { body: updateMeBody },
+      handler: (req) => people.updateMe(req.user!.id, parse(updateMeBody, req.body)),
     },
     {
       method: 'get', path: '/sites', access: { kind: 'signedIn' }, summary: 'Sites the person is a member of',
@@ -60,6 +68,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'post', path: '/sites', access: { kind: 'systemAdmin' }, summary: 'Create a site',
+      doc: { body: createSiteBody },
       handler: (req) => people.createSite(parse(createSiteBody, req.body), req.user!, req.requestId),
     },
     {
@@ -72,6 +81,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'put', path: '/sites/:siteId/members/:userId', access: { kind: 'site', roles: ['admin'] }, summary: 'Give a person a role at the site',
+      doc: { body: setMembershipBody },
       handler: (req) =>
         people.setMembership(req.site!.id, parse(idParam, req.params.userId, 'params.userId'), parse(setMembershipBody, req.body).role, req.user!, req.requestId),
     },
@@ -83,6 +93,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'get', path: '/sites/:siteId/audit', access: { kind: 'site', roles: ['admin'] }, summary: 'The site audit log, newest first',
+      doc: { query: pagingQuery },
       handler: (req) => listAudit(req.site!.id, parse(pagingQuery, req.query, 'query')),
     },
     {
@@ -91,6 +102,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'post', path: '/people', access: { kind: 'systemAdmin' }, summary: 'Create a person',
+      doc: { body: createUserBody },
       handler: (req) => people.createPerson(parse(createUserBody, req.body), req.user!, req.requestId),
     },
   ]

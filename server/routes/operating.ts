@@ -20,12 +20,14 @@ export function operatingRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/operating-entries', access: { kind: 'site', roles: ['engineer'] },
       summary: 'Log one month of operation',
+      doc: { body: operatingEntryBody },
       handler: (req) => svc.createEntries(req.site!.id, study(req.params.studyId), [parse(operatingEntryBody, req.body)], req.user!, req.requestId),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/operating-entries/import', access: { kind: 'site', roles: ['engineer'] },
       summary: 'Log months from a CSV file (all rows or none)',
       before: [upload.single('file')],
+      doc: { body: 'csvUpload' },
       handler: (req) => {
         if (!req.file) throw new ValidationError('Attach a CSV file.', [{ path: 'file', message: 'is required' }])
         if (!/\.(csv|txt)$/i.test(req.file.originalname)) throw new ValidationError('Only CSV files are accepted.', [{ path: 'file', message: 'must be a .csv file' }])
@@ -35,6 +37,7 @@ export function operatingRoutes(router: Router, cfg: Config): Router {
     {
       method: 'put', path: '/sites/:siteId/studies/:studyId/operating-entries/:entryId', access: { kind: 'site', roles: ['engineer'] },
       summary: 'Correct a logged month (optimistic locking)',
+      doc: { body: updateOperatingEntryBody },
       handler: (req) => svc.updateEntry(req.site!.id, study(req.params.studyId), parse(idParam, req.params.entryId, 'params.entryId'), parse(updateOperatingEntryBody, req.body), req.user!, req.requestId),
     },
     {

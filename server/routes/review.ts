@@ -13,23 +13,23 @@ export function reviewRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/submit', access: { kind: 'site', roles: ['engineer'] },
       summary: 'Submit a draft or returned study for review with a recommended option',
-      handler: async (req, res) => {
-        res.status(200).json(await review.submit(req.site!.id, study(req.params.studyId), parse(submitBody, req.body), req.user!, req.requestId))
-      },
+      status: 200,
+      doc: { body: submitBody },
+      handler: (req) => review.submit(req.site!.id, study(req.params.studyId), parse(submitBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/approve', access: { kind: 'site', roles: ['reviewer'] },
       summary: 'Approve a study in review (it becomes frozen)',
-      handler: async (req, res) => {
-        res.status(200).json(await review.approve(req.site!.id, study(req.params.studyId), parse(approveBody, req.body), req.user!, req.requestId))
-      },
+      status: 200,
+      doc: { body: approveBody },
+      handler: (req) => review.approve(req.site!.id, study(req.params.studyId), parse(approveBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/return', access: { kind: 'site', roles: ['reviewer'] },
       summary: 'Return a study in review with comments',
-      handler: async (req, res) => {
-        res.status(200).json(await review.returnStudy(req.site!.id, study(req.params.studyId), parse(returnBody, req.body), req.user!, req.requestId))
-      },
+      status: 200,
+      doc: { body: returnBody },
+      handler: (req) => review.returnStudy(req.site!.id, study(req.params.studyId), parse(returnBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/revise', access: { kind: 'site', roles: ['engineer'] },
@@ -44,6 +44,7 @@ export function reviewRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/comments', access: { kind: 'site', roles: ANY_ROLE },
       summary: 'Add a comment to the thread',
+      doc: { body: commentBody },
       handler: (req) => review.comment(req.site!.id, study(req.params.studyId), parse(commentBody, req.body).body, req.user!, req.requestId),
     },
     {

@@ -59,13 +59,14 @@ export function uploadRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/sites/:siteId/uploads/equilibrium/preview', access: { kind: 'site', roles: UPLOADERS_EQ }, before: [upload],
       summary: 'Check an x-y equilibrium CSV (x,y[,temperature]): points, line-numbered errors and warnings; nothing is saved',
-      handler: async (req, res) => {
-        res.status(200).json(svc.previewEquilibrium(fileOf(req), parse(equilibriumUploadFields, req.body ?? {}, 'body')))
-      },
+      status: 200,
+      doc: { body: 'csvUpload' },
+      handler: (req) => svc.previewEquilibrium(fileOf(req), parse(equilibriumUploadFields, req.body ?? {}, 'body')),
     },
     {
       method: 'post', path: '/sites/:siteId/uploads/equilibrium', access: { kind: 'site', roles: SAVERS_EQ }, before: [upload],
       summary: 'Save an equilibrium CSV as a site equilibrium table (400 with line-numbered details and nothing saved on any error)',
+      doc: { body: 'csvUpload' },
       handler: (req) => svc.saveEquilibrium(req.site!.id, fileOf(req), parse(equilibriumUploadFields, req.body ?? {}, 'body'), req.user!, req.requestId),
     },
     {
@@ -76,18 +77,20 @@ export function uploadRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/sites/:siteId/uploads/quotes/preview', access: { kind: 'site', roles: ECONOMISTS }, before: [upload],
       summary: 'Check a vendor-quotes CSV: quotes, line-numbered errors and warnings; nothing is saved',
-      handler: async (req, res) => {
-        res.status(200).json(await svc.previewQuotes(req.site!.id, fileOf(req)))
-      },
+      status: 200,
+      doc: { body: 'csvUpload' },
+      handler: (req) => svc.previewQuotes(req.site!.id, fileOf(req)),
     },
     {
       method: 'post', path: '/sites/:siteId/uploads/quotes', access: { kind: 'site', roles: ECONOMISTS }, before: [upload],
       summary: 'Save vendor quotes from a CSV in one transaction (all or nothing) under one upload reference',
+      doc: { body: 'csvUpload' },
       handler: (req) => svc.saveQuotes(req.site!.id, fileOf(req), req.user!, req.requestId),
     },
     {
       method: 'get', path: '/sites/:siteId/quotes', access: { kind: 'site', roles: ANY_ROLE },
       summary: 'Vendor quotes of the site (?equipmentType=)',
+      doc: { query: quoteListQuery },
       handler: (req) => svc.listQuotes(req.site!.id, parse(quoteListQuery, req.query, 'query').equipmentType),
     },
     {
@@ -100,16 +103,16 @@ export function uploadRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/sites/:siteId/quotes/fit', access: { kind: 'site', roles: ECONOMISTS },
       summary: 'Least-squares fit in log space of the quotes of one equipment type, in the form of the cost-basis curve',
-      handler: async (req, res) => {
-        res.status(200).json(await svc.fitQuotes(req.site!.id, parse(fitBody, req.body)))
-      },
+      status: 200,
+      doc: { body: fitBody },
+      handler: (req) => svc.fitQuotes(req.site!.id, parse(fitBody, req.body)),
     },
     {
       method: 'post', path: '/sites/:siteId/cost-bases/:id/adopt-fit', access: { kind: 'site', roles: ECONOMISTS },
       summary: 'Write fitted coefficients into a draft cost basis (409 when published or stale lockVersion)',
-      handler: async (req, res) => {
-        res.status(200).json(await svc.adoptFit(req.site!.id, parse(idParam, req.params.id, 'params.id'), parse(adoptFitBody, req.body), req.user!, req.requestId))
-      },
+      status: 200,
+      doc: { body: adoptFitBody },
+      handler: (req) => svc.adoptFit(req.site!.id, parse(idParam, req.params.id, 'params.id'), parse(adoptFitBody, req.body), req.user!, req.requestId),
     },
   ])
 }

@@ -99,7 +99,7 @@ export function inputRows(inputs: unknown): ValueRow[] {
 }
 
 /** Design summary rows: key, label, value in the display unit, unit. */
-const SUMMARY_ROWS: { key: keyof DesignSummary; label: string; unit: string; scale?: number }[] = [
+const SUMMARY_ROWS: { key: keyof DesignSummary & string; label: string; unit: string; scale?: number }[] = [
   { key: 'recovery', label: 'Recovery (target)', unit: '%', scale: 100 },
   { key: 'achievedRecovery', label: 'Recovery reached with the trays', unit: '%', scale: 100 },
   { key: 'theoreticalStages', label: 'Theoretical stages', unit: '-' },

@@ -1,0 +1,256 @@
+import { z } from 'zod'
+
+/**
+ * The answers of the engine, defined once: the design engine, the cost model and the optimiser
+ * return these shapes (server/engine/contract.ts takes its types from here), the OpenAPI document
+ * describes them and the client parses its answers with them.
+ *
+ * SI throughout, except molar flows in kmol/h and mass flows in kg/h (the product's public
+ * convention), and money in the cost basis's currency per year.
+ *
+ * The answer objects are loose: a field the engine adds is kept by the client's parse and
+ * accepted by these types, rather than silently dropped. The fields listed are the ones every
+ * answer carries (or may carry, where optional).
+ */
+
+const finite = z.number()
+
+export const engineWarningSchema = z.looseObject({
+  code: z.string().meta({ description: "What kind of warning, e.g. 'outsideValidity'" }),
+  message: z.string(),
+  path: z.string().optional().meta({ description: 'Input field concerned, e.g. tray.holeDiameter' }),
+})
+
+/** A pass / warn / fail verdict for one tray or column check. */
+export const checkResultSchema = z.looseObject({
+  key: z.string().meta({ description: "e.g. 'pressureDropPerTray', 'weeping', 'entrainment', 'downcomerBackup', 'flooding'" }),
+  label: z.string(),
+  status: z.enum(['pass', 'warn', 'fail']),
+  value: finite,
+  limit: finite,
+  /** Whether the limit is a maximum or a minimum. */
+  direction: z.enum(['max', 'min']).optional(),
+  unit: z.string().meta({ description: "Unit of value and limit, e.g. 'Pa', 'm', 's', '-'" }),
+  advice: z.string().optional(),
+  source: z.string().optional().meta({ description: 'Method and reference key(s)' }),
+})
+
+/** The design summary: the first keys are the stable public interface; every value is a number. */
+export const designSummarySchema = z
+  .object({
+    minimumSolventFlow: finite.meta({ description: 'kmol/h' }),
+    solventFlow: finite.meta({ description: 'kmol/h' }),
+    absorptionFactor: finite,
+    theoreticalStages: finite.meta({ description: 'fractional' }),
+    actualTrays: z.number().int(),
+    outletGasSoluteMoleFraction: finite,
+    richSolventSoluteMoleFraction: finite,
+    gasDensity: finite.meta({ description: 'kg/m3 at the end with the largest vapour load' }),
+    flowParameter: finite,
+    capacityFactor: finite.meta({ description: 'm/s' }),
+    floodingVelocity: finite.meta({ description: 'm/s' }),
+    downcomerAreaFraction: finite,
+    holeAreaFraction: finite.meta({ description: 'hole area / active area' }),
+    traySpacing: finite.meta({ description: 'm' }),
+    diameter: finite.meta({ description: 'm, as calculated' }),
+    selectedDiameter: finite.meta({ description: 'm, rounded up to the standard step' }),
+    pressureDropPerTray: finite.meta({ description: 'Pa' }),
+    columnPressureDrop: finite.meta({ description: 'Pa' }),
+    columnHeight: finite.meta({ description: 'm, tangent to tangent' }),
+    recovery: finite.meta({ description: 'fraction of solute absorbed, 0..1' }),
+    solventFactor: finite.meta({ description: 'L / Lmin' }),
+    floodFraction: finite.meta({ description: 'design fraction of flood' }),
+    gasFlow: finite.meta({ description: 'kmol/h, inlet' }),
+    gasVolumetricFlow: finite.meta({ description: 'm3/s at column inlet conditions' }),
+    solventMassFlow: finite.meta({ description: 'kg/h' }),
+    solventVolumetricFlow: finite.meta({ description: 'm3/h' }),
+    soluteInGas: finite.meta({ description: 'kg/h entering with the gas' }),
+    soluteAbsorbed: finite.meta({ description: 'kg/h' }),
+    soluteLost: finite.meta({ description: 'kg/h leaving with the cleaned gas' }),
+    operatingPressure: finite.meta({ description: 'Pa abs' }),
+    designPressure: finite.meta({ description: 'Pa gauge used for the shell' }),
+    shellThickness: finite.meta({ description: 'm, including corrosion allowance' }),
+    shellMass: finite.meta({ description: 'kg, shell and two heads' }),
+    percentFlood: finite.meta({ description: 'actual % of flood at the selected diameter' }),
+    overallEfficiency: finite.optional(),
+    achievedRecovery: finite.optional(),
+  })
+  .catchall(finite)
+
+export const xyPointSchema = z.looseObject({ x: finite, y: finite })
+
+export const stageProfilePointSchema = z.looseObject({
+  stage: z.number().int().meta({ description: '1 = top' }),
+  x: finite.meta({ description: 'liquid mole fraction leaving the stage' }),
+  y: finite.meta({ description: 'gas mole fraction leaving the stage' }),
+})
+
+export const designResultSchema = z.looseObject({
+  summary: designSummarySchema,
+  checks: z.array(checkResultSchema),
+  warnings: z.array(engineWarningSchema),
+  cautions: z.array(z.string()).meta({ description: 'Always includes the preliminary-vessel caution' }),
+  profile: z.looseObject({
+    method: z.enum(['kremser', 'stageByStage']),
+    stages: z.array(stageProfilePointSchema),
+    equilibriumCurve: z.array(xyPointSchema),
+    operatingLine: z.array(xyPointSchema),
+  }),
+  detail: z.record(z.string(), z.unknown()),
+})
+
+export const capitalItemSchema = z.looseObject({
+  key: z.string(),
+  label: z.string(),
+  size: finite,
+  sizeUnit: z.string(),
+  purchased: finite,
+  installed: finite,
+  annual: finite,
+})
+
+export const operatingItemSchema = z.looseObject({
+  key: z.string(),
+  label: z.string(),
+  quantity: finite,
+  quantityUnit: z.string(),
+  annual: finite,
+})
+
+/** A design priced with a cost basis. */
+export const costBreakdownSchema = z.looseObject({
+  currency: z.string(),
+  costIndex: finite,
+  capitalRecoveryFactor: finite.meta({ description: '1/yr' }),
+  purchasedCapital: finite,
+  installedCapital: finite,
+  annualisedCapital: finite.meta({ description: 'per year' }),
+  operatingCost: finite.meta({ description: 'per year' }),
+  totalAnnualCost: finite.meta({ description: 'per year' }),
+  soluteRecoveredPerYear: finite.meta({ description: 'kg/yr' }),
+  costPerKgRecovered: finite,
+  annual: z.record(z.string(), finite),
+  capital: z.array(capitalItemSchema),
+  operating: z.array(operatingItemSchema),
+  power: z.record(z.string(), finite).optional(),
+  shell: z.looseObject({ thickness: finite, mass: finite, designPressure: finite }).optional(),
+  warnings: z.array(engineWarningSchema),
+})
+
+/** The answer of POST /designs/evaluate and of a stored design run: the design, priced when a basis applied. */
+export const pricedDesignSchema = designResultSchema.extend({
+  totalAnnualCost: finite.optional(),
+  costBreakdown: costBreakdownSchema.optional(),
+})
+
+export const curvePointSchema = z.looseObject({
+  x: finite,
+  feasible: z.boolean(),
+  tac: finite.nullable(),
+  breakdown: z.record(z.string(), finite).nullable(),
+  actualTrays: z.number().int().nullable(),
+  selectedDiameter: finite.nullable(),
+  reason: z.string().optional(),
+})
+
+const sensitivitySideSchema = z.looseObject({
+  value: finite,
+  tac: finite,
+  recovery: finite,
+  solventFactor: finite,
+})
+
+export const sensitivityEntrySchema = z.looseObject({
+  item: z.string(),
+  label: z.string(),
+  unit: z.string(),
+  baseValue: finite,
+  low: sensitivitySideSchema,
+  high: sensitivitySideSchema,
+})
+
+export const optimumSchema = z.looseObject({
+  recovery: finite,
+  solventFactor: finite,
+  traySpacing: finite,
+  floodFraction: finite,
+  actualTrays: z.number().int(),
+  selectedDiameter: finite,
+  totalAnnualCost: finite,
+  breakdown: costBreakdownSchema,
+  design: designResultSchema,
+})
+
+/** The answer of POST /designs/optimize and of a stored optimisation run. */
+export const optimisationResultSchema = z.looseObject({
+  optimum: optimumSchema,
+  evaluations: z.number().int(),
+  bounds: z.looseObject({
+    recovery: z.tuple([finite, finite]),
+    solventFactor: z.tuple([finite, finite]),
+    floodFraction: z.tuple([finite, finite]),
+    traySpacings: z.array(finite),
+  }),
+  curves: z.looseObject({ recovery: z.array(curvePointSchema), solventFactor: z.array(curvePointSchema) }),
+  sensitivity: z.array(sensitivityEntrySchema),
+  stats: z.looseObject({
+    searchEvaluations: z.number().int(),
+    curveEvaluations: z.number().int(),
+    sensitivityEvaluations: z.number().int(),
+    feasibleFraction: finite,
+    ms: z.record(z.string(), finite),
+  }).optional(),
+  cautions: z.array(z.string()),
+})
+
+/** A stored run's result: a priced design or an optimisation. */
+export const runResultSchema = z.union([optimisationResultSchema, pricedDesignSchema])
+
+/** A stored run: its exact inputs, the cost-basis and engine versions, and the result as computed. */
+export const storedRunSchema = z.looseObject({
+  id: z.number().int(),
+  studyId: z.number().int(),
+  kind: z.enum(['design', 'optimize']),
+  costBasisId: z.number().int().nullable(),
+  costBasisVersion: z.number().int().nullable(),
+  engineVersion: z.string(),
+  totalAnnualCost: finite.nullable(),
+  createdAt: z.string(),
+  createdByName: z.string().nullable(),
+  inputs: z.unknown(),
+  search: z.unknown(),
+  result: runResultSchema.nullable(),
+})
+
+/**
+ * Every answer shape by name, for the OpenAPI document. Rating (an existing column checked at
+ * given flows) and uncertainty answers join here when the engine returns them.
+ */
+export const answerSchemas = {
+  EngineWarning: engineWarningSchema,
+  CheckResult: checkResultSchema,
+  DesignSummary: designSummarySchema,
+  DesignResult: designResultSchema,
+  CostBreakdown: costBreakdownSchema,
+  PricedDesign: pricedDesignSchema,
+  CurvePoint: curvePointSchema,
+  SensitivityEntry: sensitivityEntrySchema,
+  OptimisationResult: optimisationResultSchema,
+  StoredRun: storedRunSchema,
+} as const
+
+export type EngineWarning = z.infer<typeof engineWarningSchema>
+export type CheckResult = z.infer<typeof checkResultSchema>
+export type DesignSummary = z.infer<typeof designSummarySchema>
+export type XY = z.infer<typeof xyPointSchema>
+export type StageProfilePoint = z.infer<typeof stageProfilePointSchema>
+export type DesignResult = z.infer<typeof designResultSchema>
+export type CapitalItem = z.infer<typeof capitalItemSchema>
+export type OperatingItem = z.infer<typeof operatingItemSchema>
+export type CostBreakdown = z.infer<typeof costBreakdownSchema>
+export type PricedDesign = z.infer<typeof pricedDesignSchema>
+export type CurvePoint = z.infer<typeof curvePointSchema>
+export type SensitivityEntry = z.infer<typeof sensitivityEntrySchema>
+export type Optimum = z.infer<typeof optimumSchema>
+export type OptimisationResult = z.infer<typeof optimisationResultSchema>
+export type StoredRun = z.infer<typeof storedRunSchema>

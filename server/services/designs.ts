@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { ForbiddenError, ValidationError, zodDetails } from '../errors.ts'
-import { parseCase, parseBasis, parseSearch, runDesign, runOptimiseAsync, assertFinite, libraryWith } from './engine-gateway.ts'
+import { caseFromRequest, parseBasis, parseSearch, runDesign, runOptimiseAsync, assertFinite, libraryWith } from './engine-gateway.ts'
 import { siteLibrary } from './runs.ts'
 import { basisInForce } from './cost-bases.ts'
 import { loadPreset, hasPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
@@ -70,11 +70,11 @@ export async function evaluate(user: AuthUser, body: unknown) {
   let out: unknown
   if (Array.isArray(b.cases)) {
     if (b.cases.length > MAX_BATCH) throw new ValidationError('Too many cases.', [{ path: 'body.cases', message: `at most ${MAX_BATCH} cases per request` }])
-    out = b.cases.map((c, i) => runDesign(parseCase(c, ctx.library, `body.cases.${i}`), basis, `body.cases.${i}`))
+    out = b.cases.map((c, i) => runDesign(caseFromRequest(c, ctx.library, `body.cases.${i}`), basis, `body.cases.${i}`))
   } else if ('case' in b) {
-    out = runDesign(parseCase(b.case, ctx.library, 'body.case'), basis, 'body.case')
+    out = runDesign(caseFromRequest(b.case, ctx.library, 'body.case'), basis, 'body.case')
   } else {
-    out = runDesign(parseCase(b, ctx.library, 'body'), basis, 'body')
+    out = runDesign(caseFromRequest(b, ctx.library, 'body'), basis, 'body')
   }
   assertFinite(out)
   return out
@@ -85,7 +85,7 @@ export async function optimiseCase(user: AuthUser, body: unknown) {
   const b = parseOr400(envelope.extend({ case: z.unknown(), search: z.unknown().optional() }), body, 'body')
   const ctx = await siteContext(user, b.siteId)
   const basis = resolveBasis(b.costBasis, ctx.basis, 'body.costBasis') ?? loadPreset(DEFAULT_PRESET)
-  const c = parseCase(b.case, ctx.library, 'body.case')
+  const c = caseFromRequest(b.case, ctx.library, 'body.case')
   const out = await runOptimiseAsync(c, basis, parseSearch(b.search, 'body.search'), 'body.case')
   assertFinite(out)
   return out

@@ -1,7 +1,7 @@
-import { caseSchema } from '../../shared/schemas/case.ts'
 import { costBasisSchema, type CostBasisData } from '../../shared/schemas/costBasis.ts'
 import { searchSpecSchema, type SearchSpec } from '../../shared/schemas/search.ts'
-import { normaliseCase, mergeLibraries, type ComponentLibrary, type CaseSI } from '../engine/case.ts'
+import { mergeLibraries, type ComponentLibrary, type CaseSI } from '../engine/case.ts'
+import { caseToSI } from '../engine/index.ts'
 import { designSI } from '../engine/design.ts'
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
 import { priceDesign } from '../engine/costing/index.ts'
@@ -47,11 +47,14 @@ export function toApiError(e: unknown, prefix: string): never {
   throw e
 }
 
-export function parseCase(raw: unknown, library: ComponentLibrary, prefix = 'body'): CaseSI {
-  const r = caseSchema.safeParse(raw)
-  if (!r.success) throw new ValidationError('The case is not valid.', zodDetails(r.error, prefix))
+/**
+ * A raw case from a request or a stored study, in SI: the engine's one case parser
+ * (engine/index.ts caseToSI: the shared zod schema, then units and library), with its errors as
+ * API errors under `prefix` (e.g. 'body.case', 'inputs').
+ */
+export function caseFromRequest(raw: unknown, library: ComponentLibrary, prefix = 'body'): CaseSI {
   try {
-    return normaliseCase(r.data, library)
+    return caseToSI(raw, { library })
   } catch (e) {
     return toApiError(e, prefix)
   }

@@ -8,7 +8,7 @@ import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
 import { siteLibrary } from './runs.ts'
 import { recommendedRun, designSummaryOf } from './studies.ts'
-import { parseCase } from './engine-gateway.ts'
+import { caseFromRequest } from './engine-gateway.ts'
 import { costDesign, type CostBreakdown } from '../engine/costing/index.ts'
 import { priceMonth, type MonthResult } from '../engine/tracking/operating.ts'
 import { operatingEntryBody, type OperatingEntryBody } from '../../shared/schemas/operating.ts'
@@ -56,7 +56,7 @@ export async function listEntries(siteId: number, studyId: number) {
   if (s.status === 'approved' && entries.length) {
     const d = await approvedDesign(s)
     design = { summary: d.summary, runId: d.run.id, costBasisVersion: d.run.costBasisVersion }
-    const c = parseCase(d.run.inputs, await siteLibrary(siteId), 'inputs')
+    const c = caseFromRequest(d.run.inputs, await siteLibrary(siteId), 'inputs')
     // Months under the same cost-basis version price the design the same way: cost it once per version.
     const designCosts = new Map<number, CostBreakdown>()
     months = []

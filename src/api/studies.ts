@@ -44,12 +44,6 @@ export const studiesApi = {
     http.del(`${base(siteId)}/${studyId}/options/${optionId}`),
 }
 
-/** Some list endpoints may answer a bare array or { items }; accept both. */
-export function itemsOf<T>(v: T[] | { items: T[] } | null | undefined): T[] {
-  if (!v) return []
-  return Array.isArray(v) ? v : v.items
-}
-
 /** Address of the printable report or spreadsheet (the browser sends the session cookie). */
 export function studyFileUrl(siteId: number, studyId: number, kind: 'report.pdf' | 'export.xlsx'): string {
   return `${API_BASE}${base(siteId)}/${studyId}/${kind}`

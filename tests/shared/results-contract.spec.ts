@@ -54,3 +54,11 @@ describe('the engine answers match the shared answer schemas', () => {
     expect(pricedDesignSchema.safeParse({ ...design, summary: { ...design.summary, diameter: 'wide' } }).success).toBe(false)
   })
 })
+
+describe('the engine version', () => {
+  it('is the package version, defined once', async () => {
+    const { ENGINE_VERSION } = await import('../../server/engine/index.ts')
+    const pkg = (await import('../../package.json', { with: { type: 'json' } })).default
+    expect(ENGINE_VERSION).toBe(pkg.version)
+  })
+})

@@ -239,6 +239,16 @@ export const answerSchemas = {
   StoredRun: storedRunSchema,
 } as const
 
+/**
+ * An answer type without its open index signatures: the fields the schema names, all the way down.
+ * An engine interface (which has no index signature) is checked against the contract with it.
+ */
+export type KnownFields<T> = T extends readonly (infer U)[]
+  ? KnownFields<U>[]
+  : T extends object
+    ? { [K in keyof T as string extends K ? never : number extends K ? never : K]: KnownFields<T[K]> }
+    : T
+
 export type EngineWarning = z.infer<typeof engineWarningSchema>
 export type CheckResult = z.infer<typeof checkResultSchema>
 export type DesignSummary = z.infer<typeof designSummarySchema>

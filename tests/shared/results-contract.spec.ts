@@ -10,12 +10,13 @@ import {
   runResultSchema,
   type CostBreakdown,
   type OptimisationResult,
+  type KnownFields,
 } from '../../shared/schemas/results.ts'
 import demo from '../../data/demo-studies.json' with { type: 'json' }
 
 // Compile-time: what the engine returns is the shared contract (npm run typecheck fails otherwise).
-const optimisationAnswer = (r: OptimiseResult): OptimisationResult => r
-const costAnswer = (b: EngineCostBreakdown): CostBreakdown => b
+const optimisationAnswer = (r: OptimiseResult): KnownFields<OptimisationResult> => r
+const costAnswer = (b: EngineCostBreakdown): KnownFields<CostBreakdown> => b
 
 const demoCase = demo.studies[0]!.inputs
 const basis = loadPreset('halvard-cobalt-ridge')

@@ -70,6 +70,12 @@ const ERRORS: Record<string, string> = {
   '422': 'Infeasible design, with structured reasons',
 }
 
+/** Group by resource: /sites/:siteId/studies/... -> studies; the service's own routes together. */
+function tagOf(path: string): string {
+  const first = path.split('/')[path.startsWith('/sites/:siteId/') ? 3 : 1] ?? 'api'
+  return first === 'health' || first === 'openapi.json' ? 'service' : first
+}
+
 function operation(r: RouteSpec): JsonSchema {
   const params = [...r.path.matchAll(/:(\w+)/g)].map((m) => ({
     name: m[1], in: 'path', required: true,
@@ -98,7 +104,7 @@ function operation(r: RouteSpec): JsonSchema {
     operationId: `${r.method}${openApiPath(r.path).replace(/[{}]/g, '').split(/[/.-]/).filter(Boolean).map((w) => w[0]!.toUpperCase() + w.slice(1)).join('')}`,
     summary: r.summary,
     description: `Who: ${who(r.access)}`,
-    tags: [r.path.split('/')[r.path.startsWith('/sites/:siteId/') ? 3 : 1] ?? 'api'],
+    tags: [tagOf(r.path)],
     parameters: params,
     responses,
   }

@@ -10,7 +10,12 @@ export default mergeConfig(
       projects: [
         {
           extends: true,
-          test: { name: 'engine', environment: 'node', include: ['tests/engine/**/*.spec.ts'], testTimeout: 60000 },
+          test: {
+            name: 'engine',
+            environment: 'node',
+            include: ['tests/engine/**/*.spec.ts', 'tests/shared/**/*.spec.ts'],
+            testTimeout: 60000,
+          },
         },
         {
           extends: true,

@@ -13,6 +13,7 @@ import { newRouter } from './routes/define.ts'
 import { identityRoutes } from './routes/identity.ts'
 import { associate } from './db/associations.ts'
 import { registerFeatureRoutes } from './routes/index.ts'
+import { apiReference } from './api-reference.ts'
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
 
@@ -48,6 +49,7 @@ export function createApp(overrides: Partial<Config> = {}): Express {
   const api = newRouter()
   identityRoutes(api, cfg)
   registerFeatureRoutes(api, cfg)
+  app.use('/api/v1/docs', apiReference())
   app.use('/api/v1', api)
   app.use('/api', notFound)
 

@@ -1,4 +1,9 @@
 import { z } from 'zod'
+import { config as loadDotenv } from 'dotenv'
+
+// Settings from a .env file in the working directory, loaded once, here; variables already set in
+// the environment win over the file.
+loadDotenv({ quiet: true })
 
 /** Environment, parsed once and failing fast with a readable message. */
 const envSchema = z.object({

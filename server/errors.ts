@@ -1,3 +1,5 @@
+import type { ZodError } from 'zod'
+
 /** One error family for the whole API; the error handler maps each to its status. */
 export interface ErrorDetail {
   path: string
@@ -51,4 +53,13 @@ export class TooManyRequestsError extends AppError {
   constructor(message = 'Too many attempts; try again later.') {
     super(429, 'rate_limited', message)
   }
+}
+
+/** Field-path details of a zod error, each path prefixed (body., query., params., or a case path). */
+export function zodDetails(err: ZodError, prefix = ''): ErrorDetail[] {
+  return err.issues.map((i) => ({
+    path: [prefix, ...i.path.map(String)].filter(Boolean).join('.'),
+    message: i.message,
+    code: i.code,
+  }))
 }

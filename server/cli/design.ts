@@ -10,13 +10,12 @@
  * The work is in runDesignFile / designOutput so other commands (e.g. with a cost basis)
  * can extend it.
  */
-import { readFileSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
 import { reportCliError } from './errors.ts'
-import { evaluateBatch, evaluateCase, InvalidInputError, ENGINE_VERSION } from '../engine/index.ts'
+import { evaluateBatch, evaluateCase, ENGINE_VERSION } from '../engine/index.ts'
 import type { DesignResult } from '../engine/contract.ts'
 import { priceDesign } from '../engine/costing/index.ts'
-import { costBasisFrom } from './optimize.ts'
+import { costBasisFrom, readCaseFile } from './input.ts'
 
 export type DesignOutput = DesignResult | ReturnType<typeof evaluateBatch>
 
@@ -48,21 +47,6 @@ export function formatOutput(result: DesignOutput): string {
   if (!Array.isArray(result)) return JSON.stringify(result, null, 2) + '\n'
   if (result.length === 0) return '[]\n'
   return '[\n' + result.map((r) => JSON.stringify(r)).join(',\n') + '\n]\n'
-}
-
-/** Read and parse a case file; a JSON error becomes an InvalidInputError. */
-export function readCaseFile(file: string): unknown {
-  let text: string
-  try {
-    text = readFileSync(file, 'utf8')
-  } catch (e) {
-    throw new InvalidInputError('', `cannot read ${file}: ${(e as Error).message}`)
-  }
-  try {
-    return JSON.parse(text) as unknown
-  } catch (e) {
-    throw new InvalidInputError('', `${file} is not valid JSON: ${(e as Error).message}`)
-  }
 }
 
 /** Run the command; returns the exit code. */

@@ -9,52 +9,11 @@
  */
 import { fileURLToPath } from 'node:url'
 import { reportCliError } from './errors.ts'
-import { caseToSI, InvalidInputError, invalidFromZod } from '../engine/index.ts'
-import { DEFAULT_PRESET, hasPreset, listPresets, loadPreset } from '../engine/costing/presets.ts'
+import { caseToSI, InvalidInputError } from '../engine/index.ts'
 import { optimise } from '../engine/optimisation/optimise.ts'
 import type { OptimiseResult } from '../engine/optimisation/core.ts'
-import { costBasisSchema, type CostBasisData } from '../../shared/schemas/costBasis.ts'
-import { searchSpecSchema, type SearchSpec } from '../../shared/schemas/search.ts'
-import { readCaseFile } from './design.ts'
-
-function isObject(v: unknown): v is Record<string, unknown> {
-  return typeof v === 'object' && v !== null && !Array.isArray(v)
-}
-
-/** Objects merged key by key (arrays and values replaced). */
-function deepMerge(base: unknown, over: unknown): unknown {
-  if (!isObject(base) || !isObject(over)) return over
-  const out: Record<string, unknown> = { ...base }
-  for (const [k, v] of Object.entries(over)) out[k] = k in base ? deepMerge(base[k], v) : v
-  return out
-}
-
-/**
- * The cost basis of an optimize file: a full object; { "preset": "key" }; a preset with changes
- * ({ "preset": "key", "utilities": { "electricityPrice": 0.1 } }, merged field by field); or
- * omitted (the demo basis).
- */
-export function costBasisFrom(raw: unknown): CostBasisData {
-  if (raw === undefined) return loadPreset(DEFAULT_PRESET)
-  if (isObject(raw) && 'preset' in raw) {
-    const { preset, ...changes } = raw
-    if (typeof preset !== 'string' || !hasPreset(preset)) {
-      throw new InvalidInputError('costBasis.preset', `unknown preset '${String(preset)}'; known: ${listPresets().map((p) => p.key).join(', ')}`)
-    }
-    if (Object.keys(changes).length === 0) return loadPreset(preset)
-    raw = deepMerge(loadPreset(preset), changes)
-  }
-  const r = costBasisSchema.safeParse(raw)
-  if (!r.success) throw invalidFromZod(r.error, 'costBasis.')
-  return r.data
-}
-
-/** The search spec of an optimize file (defaults for what is omitted). */
-export function searchFrom(raw: unknown): SearchSpec {
-  const r = searchSpecSchema.safeParse(raw ?? {})
-  if (!r.success) throw invalidFromZod(r.error, 'search.')
-  return r.data
-}
+import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
+import { readCaseFile, costBasisFrom, searchFrom, isObject } from './input.ts'
 
 /** The JSON printed by the command (the full design of the optimum is left out; see `design`). */
 export function optimizeOutput(res: OptimiseResult, basis: CostBasisData) {

@@ -9,7 +9,7 @@ import { designSI, type DesignOptions } from './design.ts'
 import { InvalidInputError } from './errors.ts'
 import componentsJson from '../../data/components.json' with { type: 'json' }
 
-export const ENGINE_VERSION = '1.0.0'
+export { ENGINE_VERSION } from './version.ts'
 
 /** The built-in component library (data/components.json). */
 export const COMPONENT_LIBRARY: ComponentLibrary = componentsJson as unknown as ComponentLibrary

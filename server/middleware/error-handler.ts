@@ -1,17 +1,9 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
 import multer from 'multer'
-import { AppError, NotFoundError, type ErrorDetail } from '../errors.ts'
+import { AppError, NotFoundError, zodDetails } from '../errors.ts'
 import { logger } from '../logger.ts'
 import type { ErrorBody } from '../../shared/schemas/common.ts'
-
-export function zodDetails(err: ZodError, prefix = ''): ErrorDetail[] {
-  return err.issues.map((i) => ({
-    path: [prefix, ...i.path.map(String)].filter(Boolean).join('.'),
-    message: i.message,
-    code: i.code,
-  }))
-}
 
 /** JSON 404 for unknown API paths. */
 export const notFound: RequestHandler = (_req, _res, next) => next(new NotFoundError('Route'))

@@ -9,9 +9,9 @@ export function allocationRoutes(router: Router): Router {
     {
       method: 'post', path: '/sites/:siteId/allocations/solve', access: { kind: 'site', roles: ['engineer', 'economist', 'admin'] },
       summary: 'Split a limited solvent supply between absorbers (LP); optionally save it',
-      handler: async (req, res) => {
-        res.status(200).json(await svc.solve(req.site!.id, parse(allocationBody, req.body), req.user!, req.requestId))
-      },
+      status: 200,
+      doc: { body: allocationBody },
+      handler: (req) => svc.solve(req.site!.id, parse(allocationBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'get', path: '/sites/:siteId/allocations', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Saved allocations',

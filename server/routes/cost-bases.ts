@@ -1,10 +1,8 @@
 import type { Router } from 'express'
 import { defineRoutes, parse, ANY_ROLE } from './define.ts'
 import * as svc from '../services/cost-bases.ts'
-import { listPresets, loadPreset, hasPreset } from '../engine/costing/index.ts'
 import { createCostBasisBody, updateCostBasisBody, publishCostBasisBody } from '../../shared/schemas/costBases.ts'
 import { idParam } from '../../shared/schemas/common.ts'
-import { NotFoundError } from '../errors.ts'
 
 const EDITORS = ['economist', 'admin'] as const
 
@@ -12,15 +10,11 @@ export function costBasisRoutes(router: Router): Router {
   return defineRoutes(router, [
     {
       method: 'get', path: '/cost-presets', access: { kind: 'signedIn' }, summary: 'Shipped cost-basis presets with their sources',
-      handler: () => listPresets(),
+      handler: () => svc.listPresets(),
     },
     {
       method: 'get', path: '/cost-presets/:key', access: { kind: 'signedIn' }, summary: 'One preset in full',
-      handler: (req) => {
-        const key = String(req.params.key)
-        if (!hasPreset(key)) throw new NotFoundError('Preset')
-        return loadPreset(key)
-      },
+      handler: (req) => svc.presetByKey(String(req.params.key)),
     },
     {
       method: 'get', path: '/sites/:siteId/cost-bases', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Version history of the site cost basis',
@@ -28,11 +22,7 @@ export function costBasisRoutes(router: Router): Router {
     },
     {
       method: 'get', path: '/sites/:siteId/cost-bases/current', access: { kind: 'site', roles: ANY_ROLE }, summary: 'The published version in force today',
-      handler: async (req) => {
-        const b = await svc.basisInForce(req.site!.id)
-        if (!b) throw new NotFoundError('Published cost basis')
-        return svc.getVersion(req.site!.id, b.id)
-      },
+      handler: (req) => svc.currentVersion(req.site!.id),
     },
     {
       method: 'get', path: '/sites/:siteId/cost-bases/:id', access: { kind: 'site', roles: ANY_ROLE }, summary: 'One version with its data',
@@ -40,10 +30,12 @@ export function costBasisRoutes(router: Router): Router {
     },
     {
       method: 'post', path: '/sites/:siteId/cost-bases', access: { kind: 'site', roles: EDITORS }, summary: 'Start a draft (from the newest version, another version or a preset)',
+      doc: { body: createCostBasisBody },
       handler: (req) => svc.createDraft(req.site!.id, parse(createCostBasisBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'put', path: '/sites/:siteId/cost-bases/:id', access: { kind: 'site', roles: EDITORS }, summary: 'Edit a draft (optimistic locking on lockVersion)',
+      doc: { body: updateCostBasisBody },
       handler: (req) => svc.updateDraft(req.site!.id, parse(idParam, req.params.id, 'params.id'), parse(updateCostBasisBody, req.body), req.user!, req.requestId),
     },
     {
@@ -54,10 +46,9 @@ export function costBasisRoutes(router: Router): Router {
     },
     {
       method: 'post', path: '/sites/:siteId/cost-bases/:id/publish', access: { kind: 'site', roles: EDITORS }, summary: 'Publish a draft with an effective date; it becomes immutable',
-      handler: async (req, res) => {
-        const out = await svc.publish(req.site!.id, parse(idParam, req.params.id, 'params.id'), parse(publishCostBasisBody, req.body), req.user!, req.requestId)
-        res.status(200).json(out)
-      },
+      status: 200,
+      doc: { body: publishCostBasisBody },
+      handler: (req) => svc.publish(req.site!.id, parse(idParam, req.params.id, 'params.id'), parse(publishCostBasisBody, req.body), req.user!, req.requestId),
     },
   ])
 }

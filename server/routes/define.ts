@@ -1,8 +1,7 @@
 import { Router, type Request, type Response, type RequestHandler } from 'express'
 import type { ZodType } from 'zod'
 import { authenticate } from '../services/auth.ts'
-import { ForbiddenError, UnauthenticatedError, ValidationError } from '../errors.ts'
-import { zodDetails } from '../middleware/error-handler.ts'
+import { ForbiddenError, UnauthenticatedError, ValidationError, zodDetails } from '../errors.ts'
 import type { Role } from '../../shared/schemas/common.ts'
 
 /**
@@ -20,11 +19,23 @@ export type Access =
 
 export const ANY_ROLE: readonly Role[] = ['admin', 'economist', 'engineer', 'reviewer']
 
+/** What a route takes and answers, for the OpenAPI document (server/openapi.ts). */
+export interface RouteDoc {
+  /** JSON request body (a shared zod schema), or a CSV upload in the multipart field `file`. */
+  body?: ZodType | 'csvUpload'
+  query?: ZodType
+  /** The answer: a shared zod schema, or a file. Left out: a JSON answer described only by the summary. */
+  response?: ZodType | 'pdf' | 'xlsx'
+}
+
 export interface RouteSpec {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete'
   path: string
   access: Access
   summary: string
+  /** Status of a successful answer with a body (default: 201 for POST, 200 otherwise); none -> 204. */
+  status?: 200 | 201 | 204
+  doc?: RouteDoc
   handler: (req: Request, res: Response) => Promise<unknown> | unknown
   /** Extra middleware before the handler (uploads, rate limits). */
   before?: RequestHandler[]
@@ -65,6 +76,11 @@ function guard(access: Access): RequestHandler {
   }
 }
 
+/** The status of a successful answer with a body. */
+export function successStatus(s: Pick<RouteSpec, 'method' | 'status'>): number {
+  return s.status ?? (s.method === 'post' ? 201 : 200)
+}
+
 export function defineRoutes(router: Router, specs: RouteSpec[]): Router {
   for (const s of specs) {
     routeTable.push(s)
@@ -72,7 +88,7 @@ export function defineRoutes(router: Router, specs: RouteSpec[]): Router {
       const out = await s.handler(req, res)
       if (!res.headersSent) {
         if (out === undefined) res.status(204).end()
-        else res.status(s.method === 'post' ? 201 : 200).json(out)
+        else res.status(successStatus(s)).json(out)
       }
     })
   }

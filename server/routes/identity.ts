@@ -3,11 +3,12 @@ import { rateLimit } from 'express-rate-limit'
 import { defineRoutes, parse, ANY_ROLE, SESSION_COOKIE, type RouteSpec } from './define.ts'
 import { signIn, signOut, userView } from '../services/auth.ts'
 import * as people from '../services/people.ts'
-import { AuditEntry } from '../db/models/index.ts'
+import { listAudit } from '../services/audit.ts'
 import { loginBody, createUserBody, createSiteBody, setMembershipBody, updateMeBody } from '../../shared/schemas/identity.ts'
 import { idParam, pagingQuery } from '../../shared/schemas/common.ts'
 import { TooManyRequestsError } from '../errors.ts'
 import type { Config } from '../config.ts'
+import { openApiDocument } from '../openapi.ts'
 
 export function identityRoutes(router: Router, cfg: Config): Router {
   const loginLimiter = rateLimit({
@@ -25,8 +26,14 @@ export function identityRoutes(router: Router, cfg: Config): Router {
       handler: () => ({ status: 'ok', service: 'scrubwright' }),
     },
     {
+      method: 'get', path: '/openapi.json', access: { kind: 'public' }, summary: 'This API described as OpenAPI 3.1 (browsable at /api/v1/docs/)',
+      handler: () => openApiDocument(),
+    },
+    {
       method: 'post', path: '/auth/login', access: { kind: 'public' }, summary: 'Sign in with e-mail and password',
       before: [loginLimiter],
+      status: 200,
+      doc: { body: loginBody },
       handler: async (req, res) => {
         const body = parse(loginBody, req.body)
         const session = await signIn(body.email, body.password, req.requestId)
@@ -38,6 +45,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'post', path: '/auth/logout', access: { kind: 'signedIn' }, summary: 'Sign out (ends every session of this person)',
+      status: 204,
       handler: async (req, res) => {
         await signOut(req.user!.id, req.requestId)
         res.clearCookie(SESSION_COOKIE, { path: '/api' })
@@ -50,10 +58,9 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'patch', path: '/auth/me', access: { kind: 'signedIn' }, summary: 'Change own name or unit system',
-      handler: async (req, res) => {
-        await people.updateMe(req.user!.id, parse(updateMeBody, req.body))
-        res.json(await userView(req.user!.id))
-      },
+      status: 200,
+      doc: { body: updateMeBody },
+      handler: (req) => people.updateMe(req.user!.id, parse(updateMeBody, req.body)),
     },
     {
       method: 'get', path: '/sites', access: { kind: 'signedIn' }, summary: 'Sites the person is a member of',
@@ -61,6 +68,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'post', path: '/sites', access: { kind: 'systemAdmin' }, summary: 'Create a site',
+      doc: { body: createSiteBody },
       handler: (req) => people.createSite(parse(createSiteBody, req.body), req.user!, req.requestId),
     },
     {
@@ -73,6 +81,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'put', path: '/sites/:siteId/members/:userId', access: { kind: 'site', roles: ['admin'] }, summary: 'Give a person a role at the site',
+      doc: { body: setMembershipBody },
       handler: (req) =>
         people.setMembership(req.site!.id, parse(idParam, req.params.userId, 'params.userId'), parse(setMembershipBody, req.body).role, req.user!, req.requestId),
     },
@@ -84,13 +93,8 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'get', path: '/sites/:siteId/audit', access: { kind: 'site', roles: ['admin'] }, summary: 'The site audit log, newest first',
-      handler: async (req) => {
-        const q = parse(pagingQuery, req.query, 'query')
-        const { rows, count } = await AuditEntry.findAndCountAll({
-          where: { siteId: req.site!.id }, order: [['id', 'DESC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize,
-        })
-        return { items: rows.map((r) => r.get({ plain: true })), total: count, page: q.page, pageSize: q.pageSize }
-      },
+      doc: { query: pagingQuery },
+      handler: (req) => listAudit(req.site!.id, parse(pagingQuery, req.query, 'query')),
     },
     {
       method: 'get', path: '/people', access: { kind: 'systemAdmin' }, summary: 'Everyone, with memberships',
@@ -98,6 +102,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     },
     {
       method: 'post', path: '/people', access: { kind: 'systemAdmin' }, summary: 'Create a person',
+      doc: { body: createUserBody },
       handler: (req) => people.createPerson(parse(createUserBody, req.body), req.user!, req.requestId),
     },
   ]

@@ -1,6 +1,6 @@
 import type { Router } from 'express'
-import multer from 'multer'
 import { defineRoutes, parse, ANY_ROLE } from './define.ts'
+import { csvUpload } from './csv-upload.ts'
 import * as svc from '../services/operating.ts'
 import { idParam } from '../../shared/schemas/common.ts'
 import { operatingEntryBody, updateOperatingEntryBody } from '../../shared/schemas/operating.ts'
@@ -10,7 +10,7 @@ import type { Config } from '../config.ts'
 const study = (p: unknown) => parse(idParam, p, 'params.studyId')
 
 export function operatingRoutes(router: Router, cfg: Config): Router {
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: cfg.UPLOAD_LIMIT_BYTES, files: 1 } })
+  const upload = csvUpload(cfg.UPLOAD_LIMIT_BYTES)
   return defineRoutes(router, [
     {
       method: 'get', path: '/sites/:siteId/studies/:studyId/operating-entries', access: { kind: 'site', roles: ANY_ROLE },
@@ -20,21 +20,23 @@ export function operatingRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/operating-entries', access: { kind: 'site', roles: ['engineer'] },
       summary: 'Log one month of operation',
+      doc: { body: operatingEntryBody },
       handler: (req) => svc.createEntries(req.site!.id, study(req.params.studyId), [parse(operatingEntryBody, req.body)], req.user!, req.requestId),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/operating-entries/import', access: { kind: 'site', roles: ['engineer'] },
       summary: 'Log months from a CSV file (all rows or none)',
-      before: [upload.single('file')],
+      before: [upload],
+      doc: { body: 'csvUpload' },
       handler: (req) => {
         if (!req.file) throw new ValidationError('Attach a CSV file.', [{ path: 'file', message: 'is required' }])
-        if (!/\.(csv|txt)$/i.test(req.file.originalname)) throw new ValidationError('Only CSV files are accepted.', [{ path: 'file', message: 'must be a .csv file' }])
-        return svc.importCsv(req.site!.id, study(req.params.studyId), req.file.buffer.toString('utf8'), req.user!, req.requestId)
+        return svc.importCsv(req.site!.id, study(req.params.studyId), req.file.buffer, req.user!, req.requestId)
       },
     },
     {
       method: 'put', path: '/sites/:siteId/studies/:studyId/operating-entries/:entryId', access: { kind: 'site', roles: ['engineer'] },
       summary: 'Correct a logged month (optimistic locking)',
+      doc: { body: updateOperatingEntryBody },
       handler: (req) => svc.updateEntry(req.site!.id, study(req.params.studyId), parse(idParam, req.params.entryId, 'params.entryId'), parse(updateOperatingEntryBody, req.body), req.user!, req.requestId),
     },
     {

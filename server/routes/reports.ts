@@ -17,6 +17,7 @@ export function reportRoutes(router: Router): Router {
     {
       method: 'get', path: '/sites/:siteId/studies/:studyId/report.pdf', access: { kind: 'site', roles: ANY_ROLE },
       summary: 'Printable study report (PDF) from the newest design and optimisation runs',
+      doc: { response: 'pdf' },
       handler: async (req, res) => {
         sendFile(res, await svc.studyReportPdf(req.site!.id, parse(idParam, req.params.studyId, 'params.studyId'), req.user!.name), 'application/pdf')
       },
@@ -24,6 +25,7 @@ export function reportRoutes(router: Router): Router {
     {
       method: 'get', path: '/sites/:siteId/studies/:studyId/export.xlsx', access: { kind: 'site', roles: ANY_ROLE },
       summary: 'The study as a workbook: Inputs, Design, Checks, Costs, Curves, Options',
+      doc: { response: 'xlsx' },
       handler: async (req, res) => {
         sendFile(res, await svc.studyReportXlsx(req.site!.id, parse(idParam, req.params.studyId, 'params.studyId'), req.user!.name), 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
       },

@@ -1,9 +1,7 @@
 import type { Router } from 'express'
 import { defineRoutes, parse, ANY_ROLE } from './define.ts'
 import * as review from '../services/review.ts'
-import { capturedMail } from '../mail/fake-smtp.ts'
-import { MailMessage } from '../db/models/index.ts'
-import { NotFoundError } from '../errors.ts'
+import { outbox } from '../services/outbox.ts'
 import { idParam } from '../../shared/schemas/common.ts'
 import { submitBody, approveBody, returnBody, commentBody } from '../../shared/schemas/review.ts'
 import type { Config } from '../config.ts'
@@ -15,23 +13,23 @@ export function reviewRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/submit', access: { kind: 'site', roles: ['engineer'] },
       summary: 'Submit a draft or returned study for review with a recommended option',
-      handler: async (req, res) => {
-        res.status(200).json(await review.submit(req.site!.id, study(req.params.studyId), parse(submitBody, req.body), req.user!, req.requestId))
-      },
+      status: 200,
+      doc: { body: submitBody },
+      handler: (req) => review.submit(req.site!.id, study(req.params.studyId), parse(submitBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/approve', access: { kind: 'site', roles: ['reviewer'] },
       summary: 'Approve a study in review (it becomes frozen)',
-      handler: async (req, res) => {
-        res.status(200).json(await review.approve(req.site!.id, study(req.params.studyId), parse(approveBody, req.body), req.user!, req.requestId))
-      },
+      status: 200,
+      doc: { body: approveBody },
+      handler: (req) => review.approve(req.site!.id, study(req.params.studyId), parse(approveBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/return', access: { kind: 'site', roles: ['reviewer'] },
       summary: 'Return a study in review with comments',
-      handler: async (req, res) => {
-        res.status(200).json(await review.returnStudy(req.site!.id, study(req.params.studyId), parse(returnBody, req.body), req.user!, req.requestId))
-      },
+      status: 200,
+      doc: { body: returnBody },
+      handler: (req) => review.returnStudy(req.site!.id, study(req.params.studyId), parse(returnBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/revise', access: { kind: 'site', roles: ['engineer'] },
@@ -46,6 +44,7 @@ export function reviewRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/comments', access: { kind: 'site', roles: ANY_ROLE },
       summary: 'Add a comment to the thread',
+      doc: { body: commentBody },
       handler: (req) => review.comment(req.site!.id, study(req.params.studyId), parse(commentBody, req.body).body, req.user!, req.requestId),
     },
     {
@@ -56,14 +55,7 @@ export function reviewRoutes(router: Router, cfg: Config): Router {
     {
       method: 'get', path: '/outbox', access: { kind: 'systemAdmin' },
       summary: 'Development only: mail captured by the local fake mail server, and the delivery queue',
-      handler: async () => {
-        if (cfg.MAIL_MODE !== 'fake') throw new NotFoundError('Outbox')
-        const queue = await MailMessage.findAll({ order: [['id', 'DESC']], limit: 200 })
-        return {
-          captured: capturedMail(),
-          queue: queue.map((m) => ({ id: m.id, to: m.toAddress, subject: m.subject, status: m.status, attempts: m.attempts, lastError: m.lastError, createdAt: m.createdAt.toISOString(), sentAt: m.sentAt ? m.sentAt.toISOString() : null })),
-        }
-      },
+      handler: () => outbox(cfg.MAIL_MODE),
     },
   ])
 }

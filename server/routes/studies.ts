@@ -3,6 +3,7 @@ import { defineRoutes, parse, ANY_ROLE } from './define.ts'
 import * as svc from '../services/studies.ts'
 import * as runs from '../services/runs.ts'
 import { idParam } from '../../shared/schemas/common.ts'
+import { storedRunSchema } from '../../shared/schemas/results.ts'
 import { studyListQuery, createStudyBody, updateStudyBody, createRunBody, createOptionBody } from '../../shared/schemas/studies.ts'
 
 const study = (p: unknown) => parse(idParam, p, 'params.studyId')
@@ -11,10 +12,12 @@ export function studyRoutes(router: Router): Router {
   return defineRoutes(router, [
     {
       method: 'get', path: '/sites/:siteId/studies', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Studies of the site: paged, filtered (status, q) and sorted',
+      doc: { query: studyListQuery },
       handler: (req) => svc.listStudies(req.site!.id, parse(studyListQuery, req.query, 'query')),
     },
     {
       method: 'post', path: '/sites/:siteId/studies', access: { kind: 'site', roles: ['engineer'] }, summary: 'Create a study with its case',
+      doc: { body: createStudyBody },
       handler: (req) => svc.createStudy(req.site!.id, parse(createStudyBody, req.body), req.user!, req.requestId),
     },
     {
@@ -23,13 +26,13 @@ export function studyRoutes(router: Router): Router {
     },
     {
       method: 'put', path: '/sites/:siteId/studies/:studyId', access: { kind: 'site', roles: ['engineer'] }, summary: 'Edit a draft or returned study (optimistic locking on lockVersion)',
+      doc: { body: updateStudyBody },
       handler: (req) => svc.updateStudy(req.site!.id, study(req.params.studyId), parse(updateStudyBody, req.body), req.user!, req.requestId),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/archive', access: { kind: 'site', roles: ['engineer'] }, summary: 'Archive a study',
-      handler: async (req, res) => {
-        res.status(200).json(await svc.archiveStudy(req.site!.id, study(req.params.studyId), req.user!, req.requestId))
-      },
+      status: 200,
+      handler: (req) => svc.archiveStudy(req.site!.id, study(req.params.studyId), req.user!, req.requestId),
     },
     {
       method: 'get', path: '/sites/:siteId/studies/:studyId/runs', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Runs of a study, newest first',
@@ -37,28 +40,27 @@ export function studyRoutes(router: Router): Router {
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/runs', access: { kind: 'site', roles: ['engineer'] }, summary: 'Evaluate or optimise the study with the cost basis in force, and store the run',
+      doc: { body: createRunBody, response: storedRunSchema },
       handler: (req) => runs.createRun(req.site!.id, study(req.params.studyId), parse(createRunBody, req.body).kind, req.user!, req.requestId),
     },
     {
       method: 'get', path: '/sites/:siteId/studies/:studyId/runs/:runId', access: { kind: 'site', roles: ANY_ROLE }, summary: 'One stored run, exactly as computed',
+      doc: { response: storedRunSchema },
       handler: (req) => runs.getRun(req.site!.id, study(req.params.studyId), parse(idParam, req.params.runId, 'params.runId')),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/runs/:runId/compare-current', access: { kind: 'site', roles: ANY_ROLE },
       summary: 'Recompute a stored run against the newest published cost basis (not stored) and list what changed',
-      handler: async (req, res) => {
-        res.status(200).json(await runs.compareWithCurrent(req.site!.id, study(req.params.studyId), parse(idParam, req.params.runId, 'params.runId')))
-      },
+      status: 200,
+      handler: (req) => runs.compareWithCurrent(req.site!.id, study(req.params.studyId), parse(idParam, req.params.runId, 'params.runId')),
     },
     {
       method: 'get', path: '/sites/:siteId/studies/:studyId/options', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Pinned options with headline numbers',
-      handler: async (req) => {
-        await svc.findStudy(req.site!.id, study(req.params.studyId))
-        return svc.listOptions(study(req.params.studyId))
-      },
+      handler: (req) => svc.studyOptions(req.site!.id, study(req.params.studyId)),
     },
     {
       method: 'post', path: '/sites/:siteId/studies/:studyId/options', access: { kind: 'site', roles: ['engineer'] }, summary: 'Pin a run as a named option',
+      doc: { body: createOptionBody },
       handler: (req) => svc.pinOption(req.site!.id, study(req.params.studyId), parse(createOptionBody, req.body), req.user!, req.requestId),
     },
     {

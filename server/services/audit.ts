@@ -28,3 +28,11 @@ export async function audit(e: AuditInput, transaction?: Transaction): Promise<v
     { transaction },
   )
 }
+
+/** One page of a site's audit log, newest first. */
+export async function listAudit(siteId: number, q: { page: number; pageSize: number }) {
+  const { rows, count } = await AuditEntry.findAndCountAll({
+    where: { siteId }, order: [['id', 'DESC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize,
+  })
+  return { items: rows.map((r) => r.get({ plain: true })), total: count, page: q.page, pageSize: q.pageSize }
+}

@@ -1,16 +1,16 @@
-import { Op, type Transaction } from 'sequelize'
+import type { Transaction } from 'sequelize'
 import { sequelize } from '../db/sequelize.ts'
 import { CostBasis } from '../db/models/index.ts'
-import { ConflictError, NotFoundError, ValidationError } from '../errors.ts'
-import { zodDetails } from '../middleware/error-handler.ts'
+import { AppError, ConflictError, NotFoundError, ValidationError, zodDetails } from '../errors.ts'
 import { audit } from './audit.ts'
 import { userNames } from './people.ts'
 import { costBasisSchema, type CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { CostBasisVersionView } from '../../shared/schemas/costBases.ts'
-import { loadPreset, hasPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
+import { versionInForce, earlierDateImpact, isoDate } from '../../shared/costBasisInForce.ts'
+import { loadPreset, hasPreset, listPresets, DEFAULT_PRESET } from '../engine/costing/index.ts'
 import type { AuthUser } from '../types.d.ts'
 
-function view(b: CostBasis, who: Map<number, string>): CostBasisVersionView {
+function view(b: CostBasis, who: Map<number, string>, inForceId: number | null): CostBasisVersionView {
   return {
     id: b.id,
     siteId: b.siteId as number,
@@ -25,32 +25,55 @@ function view(b: CostBasis, who: Map<number, string>): CostBasisVersionView {
     basedOnId: b.basedOnId,
     lockVersion: b.lockVersion,
     updatedAt: b.updatedAt.toISOString(),
+    inForce: b.id === inForceId,
   }
+}
+
+/** The published versions of a site, without their data (enough to decide which is in force). */
+async function publishedVersions(siteId: number, transaction?: Transaction) {
+  const rows = await CostBasis.findAll({
+    where: { siteId, status: 'published' }, attributes: ['id', 'version', 'status', 'effectiveDate', 'publishedAt'], transaction,
+  })
+  return rows.map((r) => ({ id: r.id, version: r.version, status: r.status, effectiveDate: r.effectiveDate, publishedAt: r.publishedAt }))
 }
 
 export async function listVersions(siteId: number): Promise<CostBasisVersionView[]> {
   const rows = await CostBasis.findAll({ where: { siteId }, order: [['version', 'DESC']], attributes: { exclude: ['data'] } })
   const who = await userNames(rows.flatMap((r) => [r.createdBy, r.publishedBy]))
-  return rows.map((r) => view(r, who))
+  const inForce = versionInForce(rows)
+  return rows.map((r) => view(r, who, inForce?.id ?? null))
 }
 
 export async function getVersion(siteId: number, id: number): Promise<CostBasisVersionView & { data: CostBasisData }> {
   const b = await CostBasis.findOne({ where: { id, siteId } })
   if (!b) throw new NotFoundError('Cost basis')
   const who = await userNames([b.createdBy, b.publishedBy])
-  return { ...view(b, who), data: b.data as CostBasisData }
+  const inForce = versionInForce(await publishedVersions(siteId))
+  return { ...view(b, who, inForce?.id ?? null), data: b.data as CostBasisData }
 }
 
-/** The published version in force on a date (default today): the newest effective on or before it. */
-export async function basisInForce(siteId: number, on = new Date().toISOString().slice(0, 10), transaction?: Transaction): Promise<CostBasis | null> {
-  const inForce = await CostBasis.findOne({
-    where: { siteId, status: 'published', effectiveDate: { [Op.lte]: on } },
-    order: [['effectiveDate', 'DESC'], ['version', 'DESC']],
-    transaction,
-  })
-  if (inForce) return inForce
-  // Nothing effective yet on that date: fall back to the earliest published version.
-  return CostBasis.findOne({ where: { siteId, status: 'published' }, order: [['version', 'ASC']], transaction })
+/**
+ * The published version in force on a date (default today), by the one rule in
+ * shared/costBasisInForce.ts; null when none is in force yet.
+ */
+export async function basisInForce(siteId: number, on: string = isoDate(), transaction?: Transaction): Promise<CostBasis | null> {
+  const chosen = versionInForce(await publishedVersions(siteId, transaction), on)
+  return chosen ? CostBasis.findByPk(chosen.id, { transaction }) : null
+}
+
+export { listPresets }
+
+/** One shipped preset in full (404 for an unknown key). */
+export function presetByKey(key: string): CostBasisData {
+  if (!hasPreset(key)) throw new NotFoundError('Preset')
+  return loadPreset(key)
+}
+
+/** The version in force today, with its data (404 when none is). */
+export async function currentVersion(siteId: number): Promise<CostBasisVersionView & { data: CostBasisData }> {
+  const b = await basisInForce(siteId)
+  if (!b) throw new NotFoundError('Published cost basis')
+  return getVersion(siteId, b.id)
 }
 
 export async function createDraft(
@@ -127,7 +150,7 @@ export async function updateDraft(
 export async function publish(
   siteId: number,
   id: number,
-  body: { effectiveDate: string; lockVersion: number },
+  body: { effectiveDate: string; lockVersion: number; confirmEarlierDate?: boolean },
   actor: AuthUser,
   requestId: string,
 ): Promise<CostBasisVersionView & { data: CostBasisData }> {
@@ -136,6 +159,10 @@ export async function publish(
     if (!b) throw new NotFoundError('Cost basis')
     if (b.status !== 'draft') throw new ConflictError(`Version ${b.version} is published already.`)
     if (b.lockVersion !== body.lockVersion) throw new ConflictError('Someone else changed this draft since you opened it; reload before publishing.')
+    const impact = earlierDateImpact(await publishedVersions(siteId, transaction), b.version, body.effectiveDate)
+    if (impact && !body.confirmEarlierDate) {
+      throw new AppError(409, 'confirmation_needed', impact, [{ path: 'body.confirmEarlierDate', message: 'set to true to publish with this earlier date' }])
+    }
     b.status = 'published'
     b.effectiveDate = body.effectiveDate
     b.publishedAt = new Date()

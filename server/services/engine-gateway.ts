@@ -1,7 +1,7 @@
-import { caseSchema } from '../../shared/schemas/case.ts'
 import { costBasisSchema, type CostBasisData } from '../../shared/schemas/costBasis.ts'
 import { searchSpecSchema, type SearchSpec } from '../../shared/schemas/search.ts'
-import { normaliseCase, mergeLibraries, type ComponentLibrary, type CaseSI } from '../engine/case.ts'
+import { mergeLibraries, type ComponentLibrary, type CaseSI } from '../engine/case.ts'
+import { caseToSI } from '../engine/index.ts'
 import { designSI } from '../engine/design.ts'
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
 import { priceDesign } from '../engine/costing/index.ts'
@@ -9,8 +9,7 @@ import { optimise } from '../engine/optimisation/index.ts'
 import { optimiseAsync } from './optimise-pool.ts'
 import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
 import type { DesignResult } from '../engine/contract.ts'
-import { ValidationError, InfeasibleError, AppError } from '../errors.ts'
-import { zodDetails } from '../middleware/error-handler.ts'
+import { ValidationError, InfeasibleError, AppError, zodDetails } from '../errors.ts'
 import baseLibraryJson from '../../data/components.json' with { type: 'json' }
 
 /**
@@ -48,11 +47,14 @@ export function toApiError(e: unknown, prefix: string): never {
   throw e
 }
 
-export function parseCase(raw: unknown, library: ComponentLibrary, prefix = 'body'): CaseSI {
-  const r = caseSchema.safeParse(raw)
-  if (!r.success) throw new ValidationError('The case is not valid.', zodDetails(r.error, prefix))
+/**
+ * A raw case from a request or a stored study, in SI: the engine's one case parser
+ * (engine/index.ts caseToSI: the shared zod schema, then units and library), with its errors as
+ * API errors under `prefix` (e.g. 'body.case', 'inputs').
+ */
+export function caseFromRequest(raw: unknown, library: ComponentLibrary, prefix = 'body'): CaseSI {
   try {
-    return normaliseCase(r.data, library)
+    return caseToSI(raw, { library })
   } catch (e) {
     return toApiError(e, prefix)
   }

@@ -1,20 +1,20 @@
 import { UniqueConstraintError } from 'sequelize'
-import Papa from 'papaparse'
+import { decodeText, readCsv, parseNumber, columnIndex, quote, sortIssues, fileErrors } from './csv/reader.ts'
+import type { CsvIssue } from '../../shared/schemas/uploads.ts'
 import { sequelize } from '../db/sequelize.ts'
 import { OperatingEntry, Study, Run } from '../db/models/index.ts'
-import { ConflictError, NotFoundError, ValidationError, InfeasibleError, type ErrorDetail } from '../errors.ts'
+import { ConflictError, NotFoundError, ValidationError, InfeasibleError, zodDetails } from '../errors.ts'
 import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
 import { siteLibrary } from './runs.ts'
 import { recommendedRun, designSummaryOf } from './studies.ts'
-import { parseCase } from './engine-gateway.ts'
+import { caseFromRequest } from './engine-gateway.ts'
 import { costDesign, type CostBreakdown } from '../engine/costing/index.ts'
 import { priceMonth, type MonthResult } from '../engine/tracking/operating.ts'
 import { operatingEntryBody, type OperatingEntryBody } from '../../shared/schemas/operating.ts'
 import type { DesignSummary } from '../engine/contract.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { AuthUser } from '../types.d.ts'
-import { zodDetails } from '../middleware/error-handler.ts'
 
 function entryView(e: OperatingEntry) {
   return {
@@ -56,13 +56,13 @@ export async function listEntries(siteId: number, studyId: number) {
   if (s.status === 'approved' && entries.length) {
     const d = await approvedDesign(s)
     design = { summary: d.summary, runId: d.run.id, costBasisVersion: d.run.costBasisVersion }
-    const c = parseCase(d.run.inputs, await siteLibrary(siteId), 'inputs')
+    const c = caseFromRequest(d.run.inputs, await siteLibrary(siteId), 'inputs')
     // Months under the same cost-basis version price the design the same way: cost it once per version.
     const designCosts = new Map<number, CostBreakdown>()
     months = []
     for (const e of entries) {
       const b = await basisInForce(siteId, e.month)
-      if (!b) throw new InfeasibleError('No published cost basis to price the month with.', [{ path: 'costBasis', message: 'none is published', code: 'noCostBasis' }])
+      if (!b) throw new InfeasibleError(`No cost-basis version is in force on ${e.month}.`, [{ path: 'costBasis', message: 'no published version is effective on or before that month', code: 'noCostBasis' }])
       const basis = b.data as CostBasisData
       let designCost = designCosts.get(b.id)
       if (!designCost) designCosts.set(b.id, (designCost = costDesign(d.summary, basis)))
@@ -147,50 +147,64 @@ export async function deleteEntry(siteId: number, studyId: number, entryId: numb
 }
 
 const CSV_COLUMNS = ['month', 'gasFlow', 'solventFlow', 'outletMoleFraction', 'recovery', 'powerKw', 'notes'] as const
-const NUMERIC = new Set(['gasFlow', 'solventFlow', 'outletMoleFraction', 'recovery', 'powerKw'])
+type CsvColumn = (typeof CSV_COLUMNS)[number]
+const NUMERIC = new Set<CsvColumn>(['gasFlow', 'solventFlow', 'outletMoleFraction', 'recovery', 'powerKw'])
 
-/** Parse an operating-log CSV (header: month,gasFlow,solventFlow[,outletMoleFraction|recovery][,powerKw][,notes]); line-numbered errors. */
-export function parseOperatingCsv(text: string): { entries: OperatingEntryBody[]; errors: ErrorDetail[] } {
-  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim() })
-  const errors: ErrorDetail[] = []
-  const fields = parsed.meta.fields ?? []
-  for (const need of ['month', 'gasFlow', 'solventFlow']) {
-    if (!fields.includes(need)) errors.push({ path: 'file:line 1', message: `missing column "${need}" (expected ${CSV_COLUMNS.join(', ')})` })
+/**
+ * Parse an operating-log CSV (header: month,gasFlow,solventFlow[,outletMoleFraction|recovery][,powerKw][,notes])
+ * with the uploads' one reader and number rule; line-numbered problems.
+ */
+export function parseOperatingCsv(text: string): { entries: OperatingEntryBody[]; errors: CsvIssue[] } {
+  const { header, rows, errors } = readCsv(text)
+  if (!header) return { entries: [], errors: [...errors, { line: null, column: null, message: `The file is empty: it needs a header line (${CSV_COLUMNS.join(', ')}) and at least one month.` }] }
+  const col = new Map<CsvColumn, number>()
+  for (const k of CSV_COLUMNS) {
+    const i = columnIndex(header.fields, [k])
+    if (i >= 0) col.set(k, i)
   }
-  if (errors.length) return { entries: [], errors }
+  for (const need of ['month', 'gasFlow', 'solventFlow'] as const) {
+    if (!col.has(need)) errors.push({ line: header.line, column: null, message: `missing column "${need}" (expected ${CSV_COLUMNS.join(', ')})` })
+  }
+  const extra = header.fields.filter((_, i) => ![...col.values()].includes(i))
+  if (extra.length) errors.push({ line: header.line, column: null, message: `unknown column${extra.length > 1 ? 's' : ''} ${extra.map(quote).join(', ')} (expected ${CSV_COLUMNS.join(', ')})` })
+  if (errors.some((e) => e.line === header.line)) return { entries: [], errors: sortIssues(errors) }
   const entries: OperatingEntryBody[] = []
   const seen = new Set<string>()
-  parsed.data.forEach((row, i) => {
-    const line = i + 2
+  const badLines = new Set(errors.map((e) => e.line))
+  for (const r of rows) {
+    if (badLines.has(r.line)) continue
     const obj: Record<string, unknown> = {}
-    for (const [k, raw] of Object.entries(row)) {
-      const v = (raw ?? '').trim()
-      if (!CSV_COLUMNS.includes(k as (typeof CSV_COLUMNS)[number]) || v === '') continue
+    let ok = true
+    for (const [k, i] of col) {
+      const v = r.fields[i] ?? ''
+      if (v === '') continue
       if (NUMERIC.has(k)) {
-        const n = Number(v)
-        if (!Number.isFinite(n)) {
-          errors.push({ path: `file:line ${line}`, message: `${k} "${v}" is not a number` })
-          return
+        const n = parseNumber(v)
+        if (n === null) {
+          errors.push({ line: r.line, column: k, message: `${quote(v)} is not a number` })
+          ok = false
+          continue
         }
         obj[k] = n
       } else obj[k] = v
     }
-    const r = operatingEntryBody.safeParse(obj)
-    if (!r.success) {
-      for (const d of zodDetails(r.error)) errors.push({ path: `file:line ${line}`, message: `${d.path} ${d.message}` })
-      return
+    if (!ok) continue
+    const parsed = operatingEntryBody.safeParse(obj)
+    if (!parsed.success) {
+      for (const d of zodDetails(parsed.error)) errors.push({ line: r.line, column: d.path || null, message: d.message })
+      continue
     }
-    if (seen.has(r.data.month)) errors.push({ path: `file:line ${line}`, message: `month ${r.data.month} appears twice` })
-    seen.add(r.data.month)
-    entries.push(r.data)
-  })
-  for (const e of parsed.errors) errors.push({ path: `file:line ${(e.row ?? 0) + 2}`, message: e.message })
-  return { entries, errors }
+    if (seen.has(parsed.data.month)) errors.push({ line: r.line, column: 'month', message: `${parsed.data.month} appears twice` })
+    seen.add(parsed.data.month)
+    entries.push(parsed.data)
+  }
+  return { entries, errors: sortIssues(errors) }
 }
 
-export async function importCsv(siteId: number, studyId: number, text: string, actor: AuthUser, requestId: string) {
-  const { entries, errors } = parseOperatingCsv(text)
-  if (errors.length) throw new ValidationError('The file has errors; nothing was saved.', errors)
+/** Log the months of a CSV file: all rows or none (400 with 'file:line N' details). */
+export async function importCsv(siteId: number, studyId: number, file: Buffer, actor: AuthUser, requestId: string) {
+  const { entries, errors } = parseOperatingCsv(decodeText(file))
+  if (errors.length) throw fileErrors(errors)
   if (!entries.length) throw new ValidationError('The file has no rows.', [{ path: 'file', message: 'no data rows' }])
   return createEntries(siteId, studyId, entries, actor, requestId)
 }

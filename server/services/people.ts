@@ -4,9 +4,10 @@ import { sequelize } from '../db/sequelize.ts'
 import { User, Site, Membership } from '../db/models/index.ts'
 import { ConflictError, NotFoundError } from '../errors.ts'
 import { audit } from './audit.ts'
+import { userView } from './auth.ts'
 import type { AuthUser } from '../types.d.ts'
 import type { Role } from '../../shared/schemas/common.ts'
-import type { AdminUserRow, CreateUserBody, MemberRow, SiteView } from '../../shared/schemas/identity.ts'
+import type { AdminUserRow, CreateUserBody, MemberRow, SiteView, UserView } from '../../shared/schemas/identity.ts'
 
 /** Names of people by id (for 'created by' columns); unknown and null ids are left out. */
 export async function userNames(ids: (number | null)[]): Promise<Map<number, string>> {
@@ -113,6 +114,8 @@ export async function createPerson(body: CreateUserBody, actor: AuthUser, reques
   }
 }
 
-export async function updateMe(userId: number, patch: { unitSystem?: 'SI' | 'US'; name?: string }): Promise<void> {
+/** Change one's own name or unit system; answers the person as signed in. */
+export async function updateMe(userId: number, patch: { unitSystem?: 'SI' | 'US'; name?: string }): Promise<UserView> {
   await User.update(patch, { where: { id: userId } })
+  return userView(userId)
 }

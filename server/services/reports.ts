@@ -1,85 +1,27 @@
 import { Run, ReviewEvent, Site } from '../db/models/index.ts'
 import { findStudy, listOptions } from './studies.ts'
 import { userNames } from './people.ts'
+import { basisInForce } from './cost-bases.ts'
 import { QUANTITY_KINDS } from '../../shared/units.ts'
-import type { DesignResult, DesignSummary, CheckResult } from '../engine/contract.ts'
+import { VESSEL_CAUTION } from '../engine/vessel/shell.ts'
+import type { DesignResult, DesignSummary } from '../engine/contract.ts'
 import type { CostBreakdown } from '../engine/costing/index.ts'
 import type { OptimiseResult, CurvePoint } from '../engine/optimisation/core.ts'
-import type { OptionRow } from '../../shared/schemas/studies.ts'
+import type { ReportModel, RunMeta, ValueRow, CostRow, CurveSeries, ReviewRow } from './reports/model.ts'
+import { fmt } from './reports/format.ts'
 import { renderPdf } from './reports/pdf.ts'
 import { renderXlsx } from './reports/xlsx.ts'
+
+export type { ReportModel, RunMeta, ValueRow, CostRow, CurveSeries, ReviewRow }
+export { fmt, money } from './reports/format.ts'
 
 /**
  * Study reports: one data model gathered from the database (study, newest design and optimise
  * runs, options, sign-off history) and rendered as a printable PDF or a spreadsheet.
  */
 
-/** Always printed: the vessel numbers are for costing, not for construction. */
-export const VESSEL_CAUTION =
-  'Preliminary vessel estimate: shell thickness and weight are for costing only. The final design must be made to the local pressure-vessel code by a licensed engineer.'
-
-export interface RunMeta {
-  id: number
-  kind: 'design' | 'optimize'
-  createdAt: Date
-  createdByName: string | null
-  costBasisVersion: number | null
-  engineVersion: string
-}
-
-export interface ValueRow {
-  key: string
-  label: string
-  value: number | string
-  unit: string
-}
-
-export interface CostRow {
-  key: string
-  label: string
-  kind: 'capital' | 'operating'
-  size: string
-  purchased: number | null
-  installed: number | null
-  annual: number
-}
-
-export interface CurveSeries {
-  key: 'recovery' | 'solventFactor'
-  title: string
-  xLabel: string
-  xUnit: string
-  /** x in display units (recovery in %), TAC and its capital / operating parts per year. */
-  points: { x: number; tac: number; capital: number; operating: number; actualTrays: number | null }[]
-  infeasible: number
-  optimumX: number
-  optimumTac: number
-}
-
-export interface ReviewRow {
-  kind: string
-  who: string
-  at: Date
-  body: string
-}
-
-export interface ReportModel {
-  generatedAt: Date
-  generatedBy: string
-  site: { id: number; name: string }
-  study: { id: number; name: string; description: string; status: string; revision: number; ownerName: string; updatedAt: Date }
-  inputs: ValueRow[]
-  inputsNote: string | null
-  design: { run: RunMeta; source: string; summary: ValueRow[]; raw: DesignSummary; checks: CheckResult[]; warnings: string[] } | null
-  costs: { currency: string; costIndex: number; rows: CostRow[]; annualisedCapital: number; operatingCost: number; totalAnnualCost: number; costPerKgRecovered: number; soluteRecoveredPerYear: number; capitalRecoveryFactor: number; installedCapital: number } | null
-  optimise: { run: RunMeta; recovery: number; solventFactor: number; traySpacing: number; floodFraction: number; actualTrays: number; selectedDiameter: number; totalAnnualCost: number; evaluations: number } | null
-  curves: CurveSeries[]
-  currency: string
-  options: (OptionRow & { tac: number | null })[]
-  recommendedOptionId: number | null
-  review: ReviewRow[]
-  cautions: string[]
-}
+/** Always printed: the vessel numbers are for costing, not for construction (the engine's one caution text). */
+export { VESSEL_CAUTION }
 
 type PricedDesign = DesignResult & { totalAnnualCost?: number; costBreakdown?: CostBreakdown }
 
@@ -157,7 +99,7 @@ export function inputRows(inputs: unknown): ValueRow[] {
 }
 
 /** Design summary rows: key, label, value in the display unit, unit. */
-const SUMMARY_ROWS: { key: keyof DesignSummary; label: string; unit: string; scale?: number }[] = [
+const SUMMARY_ROWS: { key: keyof DesignSummary & string; label: string; unit: string; scale?: number }[] = [
   { key: 'recovery', label: 'Recovery (target)', unit: '%', scale: 100 },
   { key: 'achievedRecovery', label: 'Recovery reached with the trays', unit: '%', scale: 100 },
   { key: 'theoreticalStages', label: 'Theoretical stages', unit: '-' },
@@ -240,20 +182,6 @@ function series(key: 'recovery' | 'solventFactor', pts: CurvePoint[], optimumX: 
   }
 }
 
-/** Number formatting used in both renderings: up to `sig` significant digits, thousands separated. */
-export function fmt(v: number, sig = 4): string {
-  if (!Number.isFinite(v)) return String(v)
-  if (v === 0) return '0'
-  const a = Math.abs(v)
-  const digits = a >= 1000 ? 0 : Math.max(0, Math.min(6, sig - 1 - Math.floor(Math.log10(a))))
-  return v.toLocaleString('en-US', { maximumFractionDigits: digits, minimumFractionDigits: 0 })
-}
-
-/** Money: whole units with thousands separators, e.g. "USD 123,457". */
-export function money(v: number, currency: string): string {
-  return `${currency} ${Math.round(v).toLocaleString('en-US')}`
-}
-
 function meta(r: Run, who: Map<number, string>): RunMeta {
   return {
     id: r.id, kind: r.kind, createdAt: r.createdAt, createdByName: r.createdBy ? (who.get(r.createdBy) ?? null) : null,
@@ -296,8 +224,11 @@ export async function buildReport(siteId: number, studyId: number, generatedBy: 
     : null
 
   const currency = breakdown?.currency ?? opt?.optimum.breakdown.currency ?? ''
+  const generatedAt = new Date()
+  const inForce = await basisInForce(siteId)
   return {
-    generatedAt: new Date(),
+    generatedAt,
+    costBasisInForce: inForce ? { version: inForce.version, effectiveDate: inForce.effectiveDate } : null,
     generatedBy,
     site: { id: siteId, name: site?.name ?? `Site ${siteId}` },
     study: {
@@ -332,7 +263,7 @@ export async function buildReport(siteId: number, studyId: number, generatedBy: 
     recommendedOptionId: s.recommendedOptionId,
     review: events.map((e) => ({ kind: e.kind, who: who.get(e.userId) ?? `user ${e.userId}`, at: e.createdAt, body: e.body })),
     // The report's own vessel caution stands for the engine's wordings of the same warning.
-    cautions: [VESSEL_CAUTION, ...new Set(cautions.filter((c) => !/pressure-vessel code/i.test(c)))],
+    cautions: [VESSEL_CAUTION, ...new Set(cautions.filter((c) => c !== VESSEL_CAUTION))],
   }
 }
 

@@ -5,8 +5,8 @@ import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
 import { EDITABLE, runRow, headline } from './studies.ts'
 import { userNames } from './people.ts'
-import { libraryWith, parseCase, parseSearch, runDesign, runOptimiseAsync, assertFinite } from './engine-gateway.ts'
-import { ENGINE_VERSION } from './engine-version.ts'
+import { libraryWith, caseFromRequest, parseSearch, runDesign, runOptimiseAsync, assertFinite } from './engine-gateway.ts'
+import { ENGINE_VERSION } from '../engine/version.ts'
 import type { ComponentLibrary, LibraryComponent } from '../engine/case.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { AuthUser } from '../types.d.ts'
@@ -23,7 +23,7 @@ export async function siteLibrary(siteId: number): Promise<ComponentLibrary> {
 /** Compute a study's case (design or optimisation) against a given cost basis; nothing is stored. */
 export async function compute(siteId: number, kind: 'design' | 'optimize', inputs: unknown, search: unknown, basis: CostBasisData | null) {
   const library = await siteLibrary(siteId)
-  const c = parseCase(inputs, library, 'inputs')
+  const c = caseFromRequest(inputs, library, 'inputs')
   if (kind === 'design') return runDesign(c, basis, 'inputs')
   if (!basis) throw new InfeasibleError('Optimisation needs a published cost basis for this site.', [{ path: 'costBasis', message: 'none is published', code: 'noCostBasis' }])
   return runOptimiseAsync(c, basis, parseSearch(search, 'search'), 'inputs')

@@ -1,7 +1,7 @@
 import { Op, type WhereOptions, type Order } from 'sequelize'
 import { sequelize } from '../db/sequelize.ts'
 import { Study, User, Run, StudyOption, StudyView } from '../db/models/index.ts'
-import { ConflictError, NotFoundError, ForbiddenError } from '../errors.ts'
+import { ConflictError, NotFoundError } from '../errors.ts'
 import { audit } from './audit.ts'
 import { userNames } from './people.ts'
 import type { AuthUser } from '../types.d.ts'
@@ -198,6 +198,12 @@ export async function archiveStudy(siteId: number, studyId: number, actor: AuthU
   return getStudy(siteId, studyId, actor)
 }
 
+/** The pinned options of a study of the site (404 when the study is not the site's). */
+export async function studyOptions(siteId: number, studyId: number): Promise<OptionRow[]> {
+  await findStudy(siteId, studyId)
+  return listOptions(studyId)
+}
+
 export async function listOptions(studyId: number): Promise<OptionRow[]> {
   const opts = await StudyOption.findAll({ where: { studyId }, order: [['id', 'ASC']], include: [{ model: Run, as: 'run' }] })
   const who = await userNames(opts.map((o) => (o as StudyOption & { run: Run }).run.createdBy))
@@ -270,9 +276,4 @@ export async function removeOption(siteId: number, studyId: number, optionId: nu
     await o.destroy({ transaction })
     await audit({ userId: actor.id, siteId, action: 'remove_option', entity: 'study', entityId: studyId, before: { optionId, name: o.name }, requestId }, transaction)
   })
-}
-
-export function assertRole(user: AuthUser, siteId: number, roles: Role[]): void {
-  const r = user.roles.get(siteId)
-  if (!user.isAdmin && (!r || !roles.includes(r))) throw new ForbiddenError()
 }

@@ -20,6 +20,8 @@ export const updateCostBasisBody = z.object({
 export const publishCostBasisBody = z.object({
   effectiveDate: z.iso.date('must be a date (YYYY-MM-DD)'),
   lockVersion: z.number().int().min(0),
+  /** Needed when the date is before the effective date of the version in force today. */
+  confirmEarlierDate: z.boolean().optional(),
 })
 
 export interface CostBasisVersionView {
@@ -36,4 +38,6 @@ export interface CostBasisVersionView {
   basedOnId: number | null
   lockVersion: number
   updatedAt: string
+  /** This version is the one in force today (shared/costBasisInForce.ts). */
+  inForce: boolean
 }

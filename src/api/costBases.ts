@@ -14,7 +14,7 @@ export const costBasesApi = {
     id: number,
     body: { name: string; notes: string; data: CostBasisInput; lockVersion: number },
   ): Promise<CostBasisVersion> => http.put(`${base(siteId)}/${id}`, body),
-  publish: (siteId: number, id: number, body: { effectiveDate: string; lockVersion: number }): Promise<CostBasisVersion> =>
+  publish: (siteId: number, id: number, body: { effectiveDate: string; lockVersion: number; confirmEarlierDate?: boolean }): Promise<CostBasisVersion> =>
     http.post(`${base(siteId)}/${id}/publish`, body),
   discard: (siteId: number, id: number): Promise<unknown> => http.del(`${base(siteId)}/${id}`),
   presets: (): Promise<CostPreset[] | { items: CostPreset[] }> => http.get('/cost-presets'),

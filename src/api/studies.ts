@@ -1,4 +1,5 @@
-import { API_BASE, http, type Query } from './http.ts'
+import { runResultSchema } from '@shared/schemas/results.ts'
+import { API_BASE, ApiError, http, type Query } from './http.ts'
 import type { CaseInput, OptionRow, Paged, RunRow, RunView, StudyRow, StudyView } from './types.ts'
 
 export interface StudyListQuery extends Query {
@@ -10,6 +11,15 @@ export interface StudyListQuery extends Query {
 }
 
 const base = (siteId: number) => `/sites/${siteId}/studies`
+
+/** Check a stored run's result against the shared answer schemas (fields the page does not know are kept). */
+async function checkedRun(p: Promise<RunView>): Promise<RunView> {
+  const run = await p
+  if (run.result !== null && !runResultSchema.safeParse(run.result).success) {
+    throw new ApiError(200, 'badResponse', 'The server sent a run this page does not understand.')
+  }
+  return run
+}
 
 export const studiesApi = {
   list: (siteId: number, query: StudyListQuery): Promise<Paged<StudyRow>> => http.get(base(siteId), { query }),
@@ -23,21 +33,15 @@ export const studiesApi = {
   ): Promise<StudyView> => http.put(`${base(siteId)}/${studyId}`, body),
   archive: (siteId: number, studyId: number): Promise<unknown> => http.post(`${base(siteId)}/${studyId}/archive`, {}),
   run: (siteId: number, studyId: number, kind: 'design' | 'optimize'): Promise<RunView> =>
-    http.post(`${base(siteId)}/${studyId}/runs`, { kind }),
+    checkedRun(http.post(`${base(siteId)}/${studyId}/runs`, { kind })),
   runs: (siteId: number, studyId: number): Promise<RunRow[]> => http.get(`${base(siteId)}/${studyId}/runs`),
   getRun: (siteId: number, studyId: number, runId: number): Promise<RunView> =>
-    http.get(`${base(siteId)}/${studyId}/runs/${runId}`),
+    checkedRun(http.get(`${base(siteId)}/${studyId}/runs/${runId}`)),
   pin: (siteId: number, studyId: number, body: { runId: number; name: string; notes: string }): Promise<OptionRow> =>
     http.post(`${base(siteId)}/${studyId}/options`, body),
   options: (siteId: number, studyId: number): Promise<OptionRow[]> => http.get(`${base(siteId)}/${studyId}/options`),
   removeOption: (siteId: number, studyId: number, optionId: number): Promise<unknown> =>
     http.del(`${base(siteId)}/${studyId}/options/${optionId}`),
-}
-
-/** Some list endpoints may answer a bare array or { items }; accept both. */
-export function itemsOf<T>(v: T[] | { items: T[] } | null | undefined): T[] {
-  if (!v) return []
-  return Array.isArray(v) ? v : v.items
 }
 
 /** Address of the printable report or spreadsheet (the browser sends the session cookie). */

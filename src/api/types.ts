@@ -1,191 +1,34 @@
 /**
  * Client-side types for API answers. The case, studies, runs, options and cost-basis versions
- * come from the shared schemas; design and optimisation results follow the engine's contract
- * (server/engine/contract.ts), written out here because the client may not import server code.
+ * come from the shared schemas; the design and optimisation answers are the shared answer
+ * schemas (shared/schemas/results.ts), the same ones the engine returns.
  */
 import type { CostBasisInput } from '@shared/schemas/costBasis.ts'
-
 import type { CaseInput } from '@shared/schemas/case.ts'
+import type { PricedDesign, OptimisationResult } from '@shared/schemas/results.ts'
 
 export type { CaseInput }
+export type {
+  CheckResult,
+  EngineWarning,
+  DesignSummary,
+  XY,
+  CapitalItem,
+  OperatingItem,
+  CostBreakdown,
+  CurvePoint,
+  SensitivityEntry as SensitivityRow,
+  BoundHit,
+} from '@shared/schemas/results.ts'
 
 /** A bare number in the case unit, or a value with its unit. */
 export type Quantity = number | { value: number; unit: string }
 
 export type EquilibriumModel = CaseInput['equilibrium']['model']
 
-export interface CheckResult {
-  key: string
-  label: string
-  status: 'pass' | 'warn' | 'fail'
-  value: number
-  limit: number
-  /** 'max': the value must stay at or below the limit; 'min': at or above it */
-  direction?: 'max' | 'min'
-  unit: string
-  advice?: string
-  source?: string
-}
-
-export interface EngineWarning {
-  code: string
-  message: string
-  path?: string
-}
-
-/** Design summary: SI, molar flows in kmol/h. */
-export interface DesignSummary {
-  minimumSolventFlow: number
-  solventFlow: number
-  absorptionFactor: number
-  theoreticalStages: number
-  actualTrays: number
-  outletGasSoluteMoleFraction: number
-  richSolventSoluteMoleFraction: number
-  gasDensity: number
-  flowParameter: number
-  capacityFactor: number
-  floodingVelocity: number
-  downcomerAreaFraction: number
-  holeAreaFraction: number
-  traySpacing: number
-  diameter: number
-  selectedDiameter: number
-  pressureDropPerTray: number
-  columnPressureDrop: number
-  columnHeight: number
-  recovery: number
-  solventFactor: number
-  floodFraction: number
-  gasFlow: number
-  gasVolumetricFlow: number
-  solventMassFlow: number
-  solventVolumetricFlow: number
-  soluteInGas: number
-  soluteAbsorbed: number
-  soluteLost: number
-  operatingPressure: number
-  designPressure: number
-  shellThickness: number
-  shellMass: number
-  percentFlood: number
-  fractionOfFloodTarget: number // absent on runs stored before it existed: read with ?? floodFraction
-  [k: string]: number
-}
-
-export interface XY {
-  x: number
-  y: number
-}
-
-export interface CapitalItem {
-  key: string
-  label: string
-  size: number
-  sizeUnit: string
-  purchased: number
-  installed: number
-  annual: number
-}
-
-export interface OperatingItem {
-  key: string
-  label: string
-  quantity: number
-  quantityUnit: string
-  annual: number
-}
-
-export interface CostBreakdown {
-  currency: string
-  costIndex?: number
-  capitalRecoveryFactor?: number
-  purchasedCapital?: number
-  installedCapital?: number
-  annualisedCapital: number
-  operatingCost: number
-  totalAnnualCost: number
-  soluteRecoveredPerYear?: number
-  costPerKgRecovered?: number
-  annual?: Record<string, number>
-  capital?: CapitalItem[]
-  operating?: OperatingItem[]
-  warnings?: EngineWarning[]
-}
-
-export interface DesignResult {
-  summary: DesignSummary
-  checks: CheckResult[]
-  warnings: EngineWarning[]
-  cautions: string[]
-  profile: {
-    method: 'kremser' | 'stageByStage'
-    methodNote?: string
-    theoreticalStages?: number
-    lastStageFraction?: number
-    lastStageConvention?: string
-    stages: { stage: number; x: number; y: number }[]
-    equilibriumCurve: XY[]
-    operatingLine: XY[]
-  }
-  detail?: Record<string, unknown>
-  totalAnnualCost?: number
-  costBreakdown?: CostBreakdown
-}
-
-export interface CurvePoint {
-  x: number
-  tac: number | null
-  breakdown?: Record<string, number> | null
-  feasible: boolean
-  actualTrays?: number | null
-  selectedDiameter?: number | null
-  reason?: string
-}
-
-export interface SensitivityRow {
-  item: string
-  label: string
-  unit?: string
-  baseValue?: number
-  lowValue?: number
-  highValue?: number
-  lowChange?: number
-  highChange?: number
-  lowLimited?: boolean
-  highLimited?: boolean
-  lowNote?: string
-  highNote?: string
-  low: { value?: number; tac: number; repricedTac?: number; recovery: number; solventFactor?: number }
-  high: { value?: number; tac: number; repricedTac?: number; recovery: number; solventFactor?: number }
-}
-
-export interface BoundHit {
-  variable: 'recovery' | 'solventFactor' | 'floodFraction' | 'traySpacing'
-  bound: 'lower' | 'upper'
-  value: number
-  advice: string
-}
-
-export interface OptimizeResult {
-  optimum: {
-    recovery: number
-    solventFactor: number
-    traySpacing: number
-    floodFraction: number
-    actualTrays: number
-    selectedDiameter: number
-    totalAnnualCost: number
-    breakdown?: CostBreakdown
-    design?: DesignResult
-  }
-  evaluations: number
-  curves: { recovery: CurvePoint[]; solventFactor: CurvePoint[] }
-  sensitivity: SensitivityRow[]
-  boundHits?: BoundHit[]
-  cautions?: string[]
-  bounds?: { recovery: [number, number]; solventFactor: [number, number]; floodFraction: [number, number]; traySpacings: number[] }
-}
+/** A design as answered by the API: priced when a cost basis applied. */
+export type DesignResult = PricedDesign
+export type OptimizeResult = OptimisationResult
 
 export type { StudyRow, RunRow, OptionRow } from '@shared/schemas/studies.ts'
 import type { StudyRow, RunRow, OptionRow } from '@shared/schemas/studies.ts'

@@ -67,6 +67,19 @@ describe('operating log', () => {
     expect(ok.body.entries.map((e: { month: string }) => e.month)).toEqual(['2026-01', '2026-02'])
     expect(ok.body.entries[0].notes).toBe('cold month, fine')
 
+    // A row with more fields than the header is refused with its line, never silently cut.
+    const extra = 'month,gasFlow,solventFlow\n2031-01,400,300,EXTRA\n'
+    const ex = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries/import`).set(eng).attach('file', Buffer.from(extra), 'log.csv')
+    expect(ex.status).toBe(400)
+    expect(ex.body.error.details.map((d: { path: string }) => d.path)).toEqual(['file:line 2'])
+    expect(ex.body.error.details[0].message).toContain('1 field beyond the header')
+
+    // The same number rule as the other uploads: no thousands separators, no hex, no blanks inside.
+    const oddNumbers = 'month,gasFlow,solventFlow\n2031-02,0x190,300\n2031-03,1e3,300\n'
+    const odd = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries/import`).set(eng).attach('file', Buffer.from(oddNumbers), 'log.csv')
+    expect(odd.status).toBe(400)
+    expect(odd.body.error.details.map((d: { path: string }) => d.path)).toEqual(['file:line 2'])
+
     const wrongType = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries/import`).set(eng).attach('file', Buffer.from('x'), 'log.pdf')
     expect(wrongType.status).toBe(400)
     const rev = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries/import`).set('Authorization', `Bearer ${await tokenFor('reviewer')}`).attach('file', Buffer.from(good), 'log.csv')

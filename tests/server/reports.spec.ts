@@ -7,6 +7,7 @@ import type { Response } from 'superagent'
 import { api, tokenFor, siteIds, type Person } from './helpers.ts'
 import { ReviewEvent, User } from '../../server/db/models/index.ts'
 import { PEOPLE } from './helpers.ts'
+import { VESSEL_CAUTION } from '../../server/engine/vessel/shell.ts'
 
 const demo = JSON.parse(readFileSync('data/demo-studies.json', 'utf8')) as { studies: { inputs: Record<string, unknown> }[] }
 const ethanolCase = demo.studies[0]!.inputs
@@ -72,7 +73,7 @@ describe('study report (PDF)', () => {
     for (const section of ['Inputs', 'Design summary', 'Tray checks', 'Cost breakdown', 'Cost curves', 'Options', 'Sign-off history', 'Cautions']) {
       expect(text).toContain(section)
     }
-    expect(text).toContain('Preliminary vessel estimate: shell thickness and weight are for costing only. The final design must be made to the local pressure-vessel code by a licensed engineer.')
+    expect(text).toContain(VESSEL_CAUTION)
     // The hazard cautions of the result (ethanol is flammable, carbon dioxide an asphyxiant) are carried over.
     for (const c of design.result.cautions.filter((x) => /flammable|asphyxiant/i.test(x))) expect(text).toContain(c.slice(0, 40))
     const cur = design.result.costBreakdown.currency
@@ -94,7 +95,7 @@ describe('study report (PDF)', () => {
     const text = await pdfText(r.body as Buffer)
     expect(text).toContain('No design or optimisation has been run for this study yet')
     expect(text).toContain('No optimisation run exists for this study')
-    expect(text).toContain('Preliminary vessel estimate')
+    expect(text).toContain(VESSEL_CAUTION)
     const x = await api().get(`/api/v1/sites/${cobalt}/studies/${s.body.id}/export.xlsx`).set(await auth('reviewer')).buffer(true).parse(binary)
     expect(x.status).toBe(200)
   })

@@ -1,3 +1,4 @@
+import pkg from '../../package.json' with { type: 'json' }
 import { describe, it, expect } from 'vitest'
 import { readFileSync } from 'node:fs'
 import { api, tokenFor, siteIds } from './helpers.ts'
@@ -52,7 +53,7 @@ describe('studies', () => {
     const d = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/runs`).set(eng).send({ kind: 'design' })
     expect(d.status).toBe(201)
     expect(d.body.costBasisVersion).toBeGreaterThanOrEqual(1)
-    expect(d.body.engineVersion).toMatch(/scrubwright-engine/)
+    expect(d.body.engineVersion).toBe(pkg.version)
     expect(d.body.result.totalAnnualCost).toBeGreaterThan(0)
     const o = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/runs`).set(eng).send({ kind: 'optimize' })
     expect(o.status).toBe(201)

@@ -1,8 +1,8 @@
 import type { Transaction } from 'sequelize'
 import { CostBasis, Study, Run, User, type Site } from '../models/index.ts'
 import { loadPreset } from '../../engine/costing/index.ts'
-import { libraryWith, parseCase, parseSearch, runDesign, runOptimise } from '../../services/engine-gateway.ts'
-import { ENGINE_VERSION } from '../../services/engine-version.ts'
+import { libraryWith, caseFromRequest, parseSearch, runDesign, runOptimise } from '../../services/engine-gateway.ts'
+import { ENGINE_VERSION } from '../../engine/version.ts'
 import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
 import demo from '../../../data/demo-studies.json' with { type: 'json' }
 
@@ -48,7 +48,7 @@ export async function seedDemoStudies(sites: Map<string, Site>, transaction: Tra
       { transaction },
     )
     created++
-    const c = parseCase(s.inputs, libraryWith(), 'inputs')
+    const c = caseFromRequest(s.inputs, libraryWith(), 'inputs')
     const data = basis.data as CostBasisData
     for (const kind of s.runs) {
       const result = kind === 'design' ? runDesign(c, data, 'inputs') : runOptimise(c, data, parseSearch({}, 'search'), 'inputs')

@@ -1,6 +1,6 @@
 import PDFDocument from 'pdfkit'
-import type { ReportModel, CurveSeries } from '../reports.ts'
-import { fmt, money } from '../reports.ts'
+import type { ReportModel, CurveSeries } from './model.ts'
+import { fmt, money } from './format.ts'
 
 /**
  * The printable study report (A4, built-in Helvetica: nothing is loaded from outside).
@@ -212,6 +212,7 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
     ['Design run', runLine(designRun)],
     ['Optimisation run', runLine(m.optimise?.run)],
     ['Cost basis version', versions((r) => (r.costBasisVersion === null ? 'none' : `version ${r.costBasisVersion}`))],
+    ['Cost basis in force', m.costBasisInForce ? `version ${m.costBasisInForce.version}, effective ${m.costBasisInForce.effectiveDate ?? ''}` : 'none'],
     ['Engine version', versions((r) => r.engineVersion)],
   ])
   if (!m.design && !m.optimise) {

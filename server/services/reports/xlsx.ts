@@ -1,5 +1,5 @@
 import ExcelJS from 'exceljs'
-import type { ReportModel } from '../reports.ts'
+import type { ReportModel } from './model.ts'
 
 /**
  * The study as a workbook: Inputs, Design, Checks, Costs, Curves, Options. Numbers stay numbers

@@ -1,0 +1,13 @@
+/** Number formatting used in both renderings: up to `sig` significant digits, thousands separated. */
+export function fmt(v: number, sig = 4): string {
+  if (!Number.isFinite(v)) return String(v)
+  if (v === 0) return '0'
+  const a = Math.abs(v)
+  const digits = a >= 1000 ? 0 : Math.max(0, Math.min(6, sig - 1 - Math.floor(Math.log10(a))))
+  return v.toLocaleString('en-US', { maximumFractionDigits: digits, minimumFractionDigits: 0 })
+}
+
+/** Money: whole units with thousands separators, e.g. "USD 123,457". */
+export function money(v: number, currency: string): string {
+  return `${currency} ${Math.round(v).toLocaleString('en-US')}`
+}

@@ -92,7 +92,7 @@ describe('approach to flood: target and achieved', () => {
       const s = r.summary
       expect(s.fractionOfFloodTarget).toBe(s.floodFraction)
       // the selected diameter is the calculated one rounded up, so the achieved approach is at or below the target
-      expect(s.percentFlood).toBeLessThanOrEqual(100 * s.fractionOfFloodTarget + 1e-9)
+      expect(s.percentFlood).toBeLessThanOrEqual(100 * (s.fractionOfFloodTarget ?? Number.NaN) + 1e-9)
       expect(r.checks.find((c) => c.key === 'flooding')!.value).toBeCloseTo(s.percentFlood, 12)
     }
   })
@@ -106,7 +106,7 @@ describe('the last fractional stage is shown as counted', () => {
       expect(p.theoreticalStages).toBe(r.summary.theoreticalStages)
       expect(p.lastStageFraction).toBeGreaterThan(0)
       expect(p.lastStageFraction).toBeLessThanOrEqual(1)
-      expect(p.stages.length - 1 + p.lastStageFraction).toBeCloseTo(p.theoreticalStages, 9)
+      expect(p.stages.length - 1 + (p.lastStageFraction ?? Number.NaN)).toBeCloseTo(p.theoreticalStages ?? Number.NaN, 9)
       expect(p.lastStageConvention).toMatch(/geometric/i)
       expect((r.detail.balances as Record<string, unknown>).lastStageFraction).toBe(p.lastStageFraction)
     }

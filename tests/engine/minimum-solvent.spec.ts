@@ -164,7 +164,7 @@ describe('minimum solvent from the exact solute-free pinch analysis, every metho
           // auto takes Kremser only where the solute-free line is straight: within 2 % of the stepped count
           expect(Math.abs(r.summary.theoreticalStages / ref.N - 1)).toBeLessThan(0.02)
         }
-        expect(r.profile.methodNote.length).toBeGreaterThan(20)
+        expect((r.profile.methodNote ?? '').length).toBeGreaterThan(20)
         expect(r.profile.methodNote).not.toMatch(/[a-z]+\.[a-z]+[A-Z]/) // no field paths
       }),
       { numRuns: RUNS },

@@ -2,7 +2,8 @@ import type { Router, Request } from 'express'
 import { z } from 'zod'
 import { defineRoutes, parse } from './define.ts'
 import { ForbiddenError, ValidationError } from '../errors.ts'
-import { parseCase, parseBasis, parseSearch, runDesign, runOptimiseAsync, assertFinite, libraryWith } from '../services/engine-gateway.ts'
+import { parseCase, parseBasis, parseSearch, runDesign, runOptimiseAsync, runRate, assertFinite, libraryWith } from '../services/engine-gateway.ts'
+import { windowOptionsSchema } from '../../shared/schemas/rating.ts'
 import { siteLibrary } from '../services/runs.ts'
 import { basisInForce } from '../services/cost-bases.ts'
 import { loadPreset, hasPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
@@ -71,6 +72,28 @@ export function designRoutes(router: Router): Router {
           out = runDesign(parseCase(body.case, ctx.library, 'body.case'), basis, 'body.case')
         } else {
           out = runDesign(parseCase(body, ctx.library, 'body'), basis, 'body')
+        }
+        assertFinite(out)
+        res.status(200).json(out)
+      },
+    },
+    {
+      method: 'post', path: '/designs/rate', access: { kind: 'signedIn' },
+      summary: 'Rate a standing column: { case, window?, siteId? }, a bare case or { cases: [...] } (stateless)',
+      handler: async (req, res) => {
+        const body = req.body as Record<string, unknown> | undefined
+        if (!body || typeof body !== 'object' || Array.isArray(body)) throw new ValidationError('The body must be a JSON object.', [{ path: 'body', message: 'must be an object' }])
+        const env = parse(envelope.pick({ siteId: true }).extend({ window: windowOptionsSchema.optional() }), { siteId: body.siteId, window: body.window })
+        const ctx = await siteContext(req, env.siteId)
+        let out: unknown
+        if (Array.isArray(body.cases)) {
+          if (body.cases.length > MAX_BATCH) throw new ValidationError('Too many cases.', [{ path: 'body.cases', message: `at most ${MAX_BATCH} cases per request` }])
+          if (!body.cases.length) throw new ValidationError('The batch is empty.', [{ path: 'body.cases', message: 'give at least one case' }])
+          out = body.cases.map((c, i) => runRate(c, ctx.library, `body.cases.${i}`, env.window))
+        } else if ('case' in body) {
+          out = runRate(body.case, ctx.library, 'body.case', env.window)
+        } else {
+          out = runRate(body, ctx.library, 'body', env.window)
         }
         assertFinite(out)
         res.status(200).json(out)

@@ -126,3 +126,13 @@ export const ratingResultSchema = z.object({
   cautions: z.array(z.string()),
 })
 export type RatingResult = z.infer<typeof ratingResultSchema>
+
+/** Optional window settings beside a rating request (flows in kmol/h). */
+export const windowOptionsSchema = z
+  .object({
+    solventFlowMin: z.number().positive().optional(),
+    solventFlowMax: z.number().positive().optional(),
+    points: z.number().int().min(5).max(201).optional(),
+  })
+  .strict()
+export type WindowOptionsInput = z.infer<typeof windowOptionsSchema>

@@ -25,7 +25,7 @@ function ratingOfDesign(file: string, exactStages: boolean) {
     downcomerAreaFraction: s.downcomerAreaFraction,
     weirLength: hyd.weirLength,
   }
-  const input = { ...rest, column, solventFlow: s.solventFlow, ...(exactStages ? { efficiency: { model: 'fixed', value: s.theoreticalStages / s.actualTrays } } : {}) }
+  const input: Record<string, unknown> = { ...rest, column, solventFlow: s.solventFlow, ...(exactStages ? { efficiency: { model: 'fixed', value: s.theoreticalStages / s.actualTrays } } : {}) }
   return { design: d, input }
 }
 

@@ -44,6 +44,8 @@ export interface MonitorEntry {
 
 export interface MonthRating {
   month: string
+  gasFlow: number // kmol/h
+  solventFlow: number // kmol/h
   inletMoleFraction: number
   expectedRecovery: number
   measuredRecovery: number | null
@@ -140,6 +142,8 @@ export function monitorMonths(ctx: MonitorContext, entries: MonitorEntry[], marg
     }
     months.push({
       month: e.month,
+      gasFlow: e.gasFlow,
+      solventFlow: e.solventFlow,
       inletMoleFraction: yIn,
       expectedRecovery: out.recovery,
       measuredRecovery: e.measuredRecovery,

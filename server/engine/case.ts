@@ -279,7 +279,7 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
   if (sv.temperature !== undefined) solvT = c.absTemp(c.q('temperature', sv.temperature, 'solvent.temperature'), 'solvent.temperature')
   else {
     solvT = gasT
-    c.note('solvent.temperature not given: the gas inlet temperature is used', 'solvent.temperature')
+    c.note('Solvent temperature not given: the gas inlet temperature is used', 'solvent.temperature')
   }
   const x0 = sv.soluteMoleFraction !== undefined ? c.range(sv.soluteMoleFraction, 0, 1, 'solvent.soluteMoleFraction', false, true) : 0
   const correl = solventLib?.liquidCorrelations?.value === 'water'
@@ -321,7 +321,7 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
       else if (soluteLib?.henry && e.Hcp === undefined) B = soluteLib.henry.B
       else {
         B = 0
-        c.note("equilibrium.B not given: Henry constant taken as independent of temperature", 'equilibrium.B')
+        c.note("Temperature dependence of the Henry constant (d ln H / d(1/T)) not given: the constant is taken as independent of temperature", 'equilibrium.B')
       }
       if (!Number.isFinite(B)) throw new InvalidInputError('equilibrium.B', 'must be a finite number')
       if (solventName !== 'water' && e.Hcp === undefined) {
@@ -364,7 +364,7 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
       if (xs[0]! > 0) {
         xs.unshift(0)
         ys.unshift(0)
-        c.note('equilibrium table does not start at x = 0: the origin (0, 0) was added', 'equilibrium.points')
+        c.note('The equilibrium table does not start at x = 0: the origin (0, 0) was added', 'equilibrium.points')
       }
       eq = { model: 'table', x: xs, y: ys }
       break
@@ -432,7 +432,7 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
   if (v.designPressure !== undefined) {
     designPressure = c.q('pressureGauge', v.designPressure, 'vessel.designPressure')
     if (!Number.isFinite(designPressure) || designPressure < 0) throw new InvalidInputError('vessel.designPressure', 'must be a gauge pressure >= 0 (vacuum design is out of scope)')
-    if (designPressure < opGauge) c.warnings.push({ code: 'designPressureBelowOperating', message: 'vessel.designPressure is below the operating gauge pressure', path: 'vessel.designPressure' })
+    if (designPressure < opGauge) c.warnings.push({ code: 'designPressureBelowOperating', message: 'The vessel design pressure is below the operating gauge pressure', path: 'vessel.designPressure' })
   } else designPressure = Math.max(V.designPressureMarginFactor * opGauge, opGauge + V.designPressureMarginAdd)
   const allowableStress = v.allowableStress !== undefined ? c.positive(c.q('stress', v.allowableStress, 'vessel.allowableStress'), 'vessel.allowableStress') : V.allowableStress
   const jointEfficiency = v.jointEfficiency !== undefined ? c.range(v.jointEfficiency, 0, 1, 'vessel.jointEfficiency', true, false) : V.jointEfficiency

@@ -15,6 +15,8 @@ export interface CheckResult {
   status: 'pass' | 'warn' | 'fail'
   value: number
   limit: number
+  /** 'max': the value must stay at or below the limit; 'min': at or above it */
+  direction: 'max' | 'min'
   unit: string // unit of value and limit, e.g. 'Pa', 'm', 's', '-'
   advice?: string // what to change when not pass
   source?: string // added by the design engine: method and reference key(s) in server/engine/references.ts
@@ -64,7 +66,8 @@ export interface DesignSummary {
   designPressure: number // Pa gauge used for the shell
   shellThickness: number // m, including corrosion allowance
   shellMass: number // kg, shell + two heads
-  percentFlood: number // actual % of flood at the selected diameter
+  percentFlood: number // % of flood achieved at the selected diameter (worst end): the achieved approach to flood
+  fractionOfFloodTarget: number // the design target fraction of flood the diameter was sized for (= floodFraction)
 
   // added by the design engine (additive)
   overallEfficiency?: number // - (O'Connell or the fixed user value)
@@ -84,6 +87,14 @@ export interface DesignResult {
   cautions: string[] // always includes the preliminary-vessel caution
   profile: {
     method: 'kremser' | 'stageByStage'
+    /** which method ran and why, in words */
+    methodNote: string
+    /** ideal stages counted (fractional) = stages.length - 1 + lastStageFraction */
+    theoreticalStages: number
+    /** fraction of the last stage in `stages` that is counted (0..1] */
+    lastStageFraction: number
+    /** the convention used for that fraction, with its reason */
+    lastStageConvention: string
     stages: StageProfilePoint[]
     equilibriumCurve: { x: number; y: number }[] // for the operating diagram
     operatingLine: { x: number; y: number }[]

@@ -45,22 +45,13 @@ export const REFERENCES = {
     note: 'constants from memory; checked against IAPWS-95 values at 20, 25, 30 C in the tests',
     tag: 'M',
   },
-  waterViscosityVogel: {
-    key: 'waterViscosityVogel',
-    authors: 'Al-Shemmeri, T. (quoting the Vogel-type fit of water viscosity)',
-    title: 'Engineering Fluid Mechanics',
-    year: 2012,
-    isbn: '978-87-403-0114-4',
-    note: 'mu = 2.414e-5 * 10^(247.8/(T - 140)) Pa s, T in K; from memory; checked against IAPWS 2008 values in the tests',
-    tag: 'M',
-  },
   iapws2008viscosity: {
     key: 'iapws2008viscosity',
     authors: 'Huber, M. L. et al.',
     title: 'New international formulation for the viscosity of H2O',
     year: 2009,
     doi: '10.1063/1.3088050',
-    note: 'check values only (0.89002 mPa s at 25 C, 0.1 MPa)',
+    note: 'IAPWS R12-08, Release on the IAPWS Formulation 2008 for the Viscosity of Ordinary Water Substance; the same formulation as the paper (Tables 1 and 2 coefficients)',
     tag: 'C',
   },
   sander2015: {

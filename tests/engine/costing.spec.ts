@@ -6,11 +6,8 @@ import {
   costDesign,
   costFromCurve,
   escalateCost,
-  minimumThickness,
   platformsCost,
   pressureFactorVesselTurton,
-  shellMassSeider,
-  shellThicknessUG27,
   trayCountFactor,
 } from '../../server/engine/costing/index.ts'
 import { listPresets, loadPreset } from '../../server/engine/costing/presets.ts'
@@ -59,13 +56,6 @@ describe('cost-index escalation — CEPCI annual averages', () => {
 })
 
 describe('Seider et al. 3rd ed. correlations (coefficients from memory; check values computed from them [D from M])', () => {
-  it('shell weight, D_i = 5 ft, L = 50 ft, t_s = 5/16 in, CS -> W = 10,897 lb [from memory]', () => {
-    const W = shellMassSeider(60, 600, 0.3125, 0.284) // inches and lb/in3, as published
-    near(W, 10897, 5e-5)
-    // the same in SI (density 0.284 lb/in3 = 7861 kg/m3)
-    const rho = (0.284 * LB) / IN ** 3
-    near(shellMassSeider(5 * FT, 50 * FT, 0.3125 * IN, rho) / LB, 10897, 5e-5)
-  })
   it('tower shell C_V(W = 10,897 lb) = $57,394 at CE 500 [from memory]', () => {
     near(costFromCurve(10897 * LB, seider.correlations.shell.curve), 57394, 5e-5)
   })
@@ -128,20 +118,6 @@ describe('Turton et al. 3rd ed., Appendix A and Example 7.13', () => {
   })
 })
 
-describe('shell thickness, ASME VIII-1 UG-27 thin-wall formula', () => {
-  it('P = 1.5 MPa, D = 600 mm, S = 138 MPa, E = 1, CA = 3 mm -> 6.28 mm (pressure-vessel calculator check)', () => {
-    // source: calculatorcollection.org pressure-vessel calculator, UG-27 circumferential stress
-    near(shellThicknessUG27(1.5e6, 0.6, 138e6, 1, 0.003, 0) * 1000, 6.28, 5e-4)
-  })
-  it('minimum wall for rigidity governs at low pressure; table after Seider et al. [from memory]', () => {
-    const table = seider.materials.minimumThickness
-    expect(minimumThickness(1.0, table)).toBeCloseTo(0.25 * IN, 9) // D <= 4 ft: 1/4 in
-    expect(minimumThickness(1.5, table)).toBeCloseTo(0.3125 * IN, 9) // 4-6 ft: 5/16 in
-    expect(minimumThickness(3.5, table)).toBeCloseTo(0.5 * IN, 9) // 10-12 ft: 1/2 in
-    expect(shellThicknessUG27(68948, 1.0, 94.8e6, 0.85, 0.003175, minimumThickness(1.0, table))).toBeCloseTo(0.25 * IN + 0.003175, 9)
-  })
-})
-
 /** A design summary typed by hand (not an engine output) for pricing checks. */
 function summary(over: Partial<DesignSummary> = {}): DesignSummary {
   return {
@@ -179,6 +155,7 @@ function summary(over: Partial<DesignSummary> = {}): DesignSummary {
     shellThickness: 0.3125 * IN,
     shellMass: 10897 * LB,
     percentFlood: 72,
+    fractionOfFloodTarget: 0.75,
     ...over,
   }
 }
@@ -249,25 +226,12 @@ describe('costDesign — items, escalation, installation and annualisation', () 
   })
 
   it('outside a correlation range: a warning, and the cost is extrapolated, not clamped', () => {
-    const small = summary({ selectedDiameter: 0.4, columnHeight: 4 })
+    const small = summary({ selectedDiameter: 0.4, columnHeight: 4, shellMass: 250 })
     const r = costDesign(small, seider)
     expect(r.warnings.some((w) => w.code === 'costOutsideValidity' && w.path === 'correlations.shell')).toBe(true)
     // extrapolated: the tray cost follows the curve at 0.4 m (1.31 ft), below its 2 ft minimum
     const trays = r.capital.find((c) => c.key === 'trays')
     near(trays?.purchased ?? 0, 14 * (2.25 / 1.0414 ** 14) * 468 * Math.exp(0.1739 * 0.4 / FT), 1e-6)
-  })
-
-  it('costs a design in a few microseconds (the optimiser calls it thousands of times)', () => {
-    const b = loadPreset('halvard-cobalt-ridge')
-    const s = summary()
-    let acc = 0
-    for (let i = 0; i < 2000; i++) acc += costDesign(s, b).totalAnnualCost
-    const n = 20000
-    const t0 = performance.now()
-    for (let i = 0; i < n; i++) acc += costDesign(s, b).totalAnnualCost
-    const us = ((performance.now() - t0) * 1000) / n
-    expect(acc).toBeGreaterThan(0)
-    expect(us).toBeLessThan(25) // generous on a shared 2-core machine; typically 1-3 µs
   })
 })
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { fractionAbsorbedKremser, stagesFromUnabsorbedKremser, stagesKremser } from '../../server/engine/balances/kremser.ts'
 import { stepStages } from '../../server/engine/balances/stageByStage.ts'
-import { minimumSlopeEndPinch, minimumSlopeGeneral } from '../../server/engine/balances/minimumSolvent.ts'
+import { minimumSlope } from '../../server/engine/balances/minimumSolvent.ts'
 import { LinearEquilibrium, TableEquilibrium } from '../../server/engine/equilibrium/models.ts'
 import { expectPublished } from './published.ts'
 
@@ -35,7 +35,7 @@ describe('Kremser: published check values', () => {
 describe('stage-by-stage profile check (A = 1.4, m = 1, y_in = 0.02, x0 = 0, N = 5)', () => {
   const src = 'Kremser closed form vs stage-by-stage balance, values computed from the formula (D)'
   const eq = new LinearEquilibrium(1)
-  const out = { N: 0, steps: 0, x: [] as number[], y: [] as number[] }
+  const out = { N: 0, steps: 0, lastStageFraction: 0, x: [] as number[], y: [] as number[] }
   const y1 = 0.02 * (1 - fractionAbsorbedKremser(1.4, 5))
   const r = stepStages(eq, false, y1, 0, 0.02, 1.4, 100, out)!
   it('y_1 = 0.00122520 closes on y_6 = 0.02000 in exactly 5 stages', () => {
@@ -81,16 +81,18 @@ describe('round trips and limiting cases', () => {
     const r = 0.985
     const yIn = 1e-5
     const Y = yIn / (1 - yIn)
-    const p = minimumSlopeEndPinch(new LinearEquilibrium(K), (1 - r) * Y, 0, Y)
+    const p = minimumSlope(new LinearEquilibrium(K), (1 - r) * Y, 0, Y)
     expect(p.slope / K).toBeCloseTo(r, 4)
+    expect(p.tangent).toBe(false)
   })
   it('curved equilibrium: the general pinch finds a tangent pinch inside the range', () => {
     // an equilibrium curve bending up towards the rich end: y = 0.2 x for x < 0.1, then steep
     const t = new TableEquilibrium([0, 0.05, 0.1, 0.15, 0.2], [0, 0.01, 0.02, 0.06, 0.12])
     const Yin = 0.12 / 0.88
-    const end = minimumSlopeEndPinch(t, 0.001, 0, Yin)
-    const gen = minimumSlopeGeneral(t, 0.001, 0, Yin)
-    expect(gen.slope).toBeGreaterThanOrEqual(end.slope - 1e-12)
+    const XstarN = t.x(0.12) / (1 - t.x(0.12))
+    const end = (Yin - 0.001) / XstarN
+    const gen = minimumSlope(t, 0.001, 0, Yin)
+    expect(gen.slope).toBeGreaterThanOrEqual(end - 1e-12)
     // and the stepping at 1.05 x the minimum does not pinch while at 0.98 x it does
     expect(stepStages(t, true, 0.001, 0, Yin, 1.05 * gen.slope, 2000, null)).not.toBeNull()
   })

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { densityWater, surfaceTensionWater, viscosityWater } from '../../server/engine/properties/water.ts'
+import { densityWater, surfaceTensionWater, viscosityWater, viscosityWaterIAPWS } from '../../server/engine/properties/water.ts'
 import { densityIdealGas } from '../../server/engine/properties/gas.ts'
 import { R_GAS } from '../../server/engine/properties/constants.ts'
 import { vapourPressureAntoine } from '../../server/engine/properties/vapourPressure.ts'
@@ -45,7 +45,7 @@ describe('water: IAPWS R1-76(2014) surface tension', () => {
   })
 })
 
-describe('water density (Kell 1975) and viscosity (Vogel fit) against IAPWS values', () => {
+describe('water density (Kell 1975) and viscosity against IAPWS values', () => {
   it('density within 0.02 kg/m3 of IAPWS-95 at 20, 25, 30 degC', () => {
     const src = 'IAPWS-95 at 0.101325 MPa (M: from memory)'
     expectPublished({ source: src, where: '20 degC', expected: 998.207, tolerance: 0.02 }, densityWater(293.15))
@@ -56,6 +56,30 @@ describe('water density (Kell 1975) and viscosity (Vogel fit) against IAPWS valu
     expectPublished({ source: 'IAPWS 2008 via a property library (C)', where: '25 degC, 0.1 MPa', expected: 0.89002, tolerance: 0.0045 }, 1000 * viscosityWater(298.15))
     expectPublished({ source: 'IAPWS 2008 (M)', where: '20 degC', expected: 1.0016, tolerance: 0.005 }, 1000 * viscosityWater(293.15))
     expectPublished({ source: 'IAPWS 2008 (M)', where: '30 degC', expected: 0.797, tolerance: 0.004 }, 1000 * viscosityWater(303.15))
+  })
+})
+
+describe('water viscosity: IAPWS 2008 formulation (release R12-08)', () => {
+  // Values at the release's own density, computed with CoolProp 8.0.0 (IAPWS-95 density, IAPWS 2008
+  // viscosity) at 200 kPa: engineering-references section 8 (D). The formulation at a given density
+  // must reproduce them to the printed digits.
+  const src = 'IAPWS 2008 (R12-08) via CoolProp 8.0.0 at 200 kPa (D)'
+  const table: [number, number, number][] = [
+    [0.01, 1.79091, 999.894],
+    [25, 0.890009, 997.092],
+    [50, 0.546536, 988.078],
+    [100, 0.281609, 958.395],
+  ]
+  for (const [t, mu, rho] of table) {
+    it(`mu(${t} degC, ${rho} kg/m3) = ${mu} mPa s`, () => {
+      expectPublished({ source: src, where: `${t} degC`, expected: mu, tolerance: 2e-5 * mu }, 1000 * viscosityWaterIAPWS(273.15 + t, rho))
+    })
+    it(`liquid water at ${t} degC with the engine's own density within 0.5 % of the release`, () => {
+      expectPublished({ source: src, where: `${t} degC, Kell density`, expected: mu, tolerance: 0.005 * mu }, 1000 * viscosityWater(273.15 + t))
+    })
+  }
+  it('release check point 298.15 K, 998 kg/m3 = 889.735100 uPa s (M: from memory of the release table)', () => {
+    expectPublished({ source: 'IAPWS R12-08 Table 4 (M: from memory)', where: '298.15 K, 998 kg/m3', expected: 889.7351, tolerance: 0.0005 }, 1e6 * viscosityWaterIAPWS(298.15, 998))
   })
 })
 

@@ -56,18 +56,3 @@ export function stagesKremser(yIn: number, yOut: number, Kx0: number, A: number)
 export function stagesFromUnabsorbedKremser(A: number, phi: number): number {
   return stagesKremser(1, phi, 0, A)
 }
-
-/**
- * Kremser profile in mole fractions for constant L/V: y_{n+1} = y_1 - (L/V) x0 + A y_n,
- * x_n = y_n / K. Writes n points (top = 1) into xs, ys.
- */
-export function profileKremser(y1: number, x0: number, K: number, A: number, n: number, xs: number[], ys: number[]): void {
-  const LV = A * K
-  let y = y1
-  for (let i = 0; i < n; i++) {
-    const x = y / K
-    xs.push(x)
-    ys.push(y)
-    y = y1 + LV * (x - x0)
-  }
-}

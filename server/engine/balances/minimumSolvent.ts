@@ -10,8 +10,8 @@
  *
  * Source: benitez2009 ch. 5 (L'min/V' = (Y_{N+1} - Y_1)/(X*_N - X_0)); treybal1980 ch. 8
  * (tangent pinch for curved equilibrium lines).
- * Example: linear K = 0.62, y_in = 0.015, recovery 0.985, x0 = 0:
- *   s_min = (Yin - Y1)/(X*_N) ~ K r (dilute) = 0.6107 (mole-fraction basis)
+ * Example: linear K = 0.62, y_in = 1e-5, recovery 0.985, x0 = 0: rich-end pinch,
+ *   s_min = (Yin - Y1)/X*_N = K r = 0.6107 (dilute limit)
  */
 import type { EquilibriumCurve } from '../equilibrium/models.ts'
 import { eqXofY, eqYofX } from './stageByStage.ts'
@@ -23,14 +23,13 @@ export interface MinSlope {
   tangent: boolean
 }
 
-/** Rich-end pinch only (straight equilibrium in mole fractions, dilute). */
-export function minimumSlopeEndPinch(eq: EquilibriumCurve, Y1: number, X0: number, Yin: number): MinSlope {
-  const XN = eqXofY(eq, Yin)
-  return { slope: (Yin - Y1) / (XN - X0), Xpinch: XN, tangent: false }
-}
-
-/** General pinch: scan plus golden-section refinement. */
-export function minimumSlopeGeneral(eq: EquilibriumCurve, Y1: number, X0: number, Yin: number, gridPoints = 48): MinSlope {
+/**
+ * The exact pinch on the solute-free basis, for every equilibrium model and method: a scan of
+ * (Y*(X) - Y1)/(X - X0) over (X0, X*_N], then a golden-section refinement around the best grid
+ * point. The rich-end pinch is the answer when the largest value is at X*_N; otherwise the pinch
+ * is a tangent one.
+ */
+export function minimumSlope(eq: EquilibriumCurve, Y1: number, X0: number, Yin: number, gridPoints = 48): MinSlope {
   const XN = eqXofY(eq, Yin)
   const span = XN - X0
   let best = (Yin - Y1) / span

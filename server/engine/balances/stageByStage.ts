@@ -3,12 +3,24 @@
  * basis: X = x/(1-x), Y = y/(1-y), with constant solute-free flows L' and V', so the
  * operating line is straight: Y_{n+1} = Y_1 + (L'/V')(X_n - X_0).
  *
- * The last fractional stage is interpolated geometrically (the step sizes of a
- * straight-line system grow by A per stage), which makes the count equal to the
- * Kremser equation for straight lines.
+ * The last fractional stage: see LAST_STAGE_CONVENTION.
  *
  * Source: benitez2009 ch. 5; treybal1980 ch. 8 (solute-free basis).
  */
+
+/**
+ * Convention for the last, partial stage of a stage-by-stage count.
+ *
+ * Two conventions are in use: the linear fraction of the last step, need/step (usual in hand
+ * McCabe-Thiele work), and the geometric fraction f = ln(1 + (A - 1) need/step)/ln A, with A the
+ * ratio of the last two step heights. The engine uses the geometric one: on straight operating
+ * and equilibrium lines the steps grow by the absorption factor A per stage, so this fraction
+ * makes the stepped count equal the Kremser N exactly (kremser1930), and the two methods agree
+ * where both apply. The linear fraction is never smaller by more than one stage's fraction.
+ * Source: commonPractice (both conventions; the geometric form follows from kremser1930).
+ */
+export const LAST_STAGE_CONVENTION =
+  'Geometric fraction of the last step, ln(1 + (A - 1) need/step) / ln A with A the ratio of the last two steps: on straight lines the count equals the Kremser equation exactly (the linear fraction need/step of hand McCabe-Thiele work is the other common convention).'
 import type { EquilibriumCurve } from '../equilibrium/models.ts'
 
 export interface SteppingResult {
@@ -16,6 +28,8 @@ export interface SteppingResult {
   N: number
   /** Whole stages stepped (ceil of N). */
   steps: number
+  /** Fraction of the last stepped stage counted in N (0..1]: N = steps - 1 + lastStageFraction. */
+  lastStageFraction: number
   /** Liquid and gas compositions leaving each stage, top = index 0 (mole fractions, or ratios when ratio=false was used on ratio data). */
   x: number[]
   y: number[]
@@ -69,9 +83,10 @@ export function stepStages(
       }
       if (f > 1) f = 1
       if (f < 0) f = 0
-      const res = out ?? { N: 0, steps: 0, x: [], y: [] }
+      const res = out ?? { N: 0, steps: 0, lastStageFraction: 0, x: [], y: [] }
       res.N = n - 1 + f
       res.steps = n
+      res.lastStageFraction = f
       return res
     }
     const d = Ynext - Yn

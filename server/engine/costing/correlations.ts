@@ -84,60 +84,6 @@ export function capitalRecoveryFactor(i: number, n: number): number {
 }
 
 /**
- * Shell thickness under internal pressure, thin-wall circumferential stress, with corrosion allowance
- * and a minimum wall for rigidity.
- *
- * t_p = P R / (S E − 0.6 P);  t = max(t_p, t_min(D)) + CA
- *
- * @param P     design pressure [Pa gauge]
- * @param D     inside diameter [m] (R = D/2)
- * @param S     allowable stress [Pa]
- * @param E     joint efficiency [-]
- * @param CA    corrosion allowance [m]
- * @param tMin  minimum wall for rigidity at this diameter [m]
- * @returns     [m]
- * Validity: t_p ≤ R/2 and P ≤ 0.385 S E (thin wall). Wind, seismic and vacuum loads are not included.
- * Source: asmeVIII1 UG-27(c)(1); the rigidity table after seider2009.
- * Example: P = 1.5 MPa, D = 0.6 m, S = 138 MPa, E = 1, CA = 3 mm, t_min = 0 -> 6.28 mm.
- * Caution: a preliminary estimate for costing; the vessel must be designed to the local
- * pressure-vessel code by a licensed engineer.
- */
-export function shellThicknessUG27(P: number, D: number, S: number, E: number, CA: number, tMin: number): number {
-  const tp = (P * (D / 2)) / (S * E - 0.6 * P)
-  return Math.max(tp, tMin) + CA
-}
-export const shellThicknessUG27Validity = { maxPressureOverSE: 0.385 }
-
-/** Minimum wall from a (maxDiameter, thickness) table; beyond the last row the last thickness. */
-export function minimumThickness(D: number, table: readonly { maxDiameter: number; thickness: number }[]): number {
-  let t = 0
-  for (const row of table) {
-    t = row.thickness
-    if (D <= row.maxDiameter) return t
-  }
-  return t
-}
-
-/**
- * Weight of a cylindrical shell with two 2:1 elliptical heads.
- *
- * W = π (D_i + t_s)(L + 0.8 D_i) t_s ρ   (published in inches and lb/in³; any consistent units)
- *
- * @param Di    inside diameter [m]
- * @param L     tangent-to-tangent length [m]
- * @param ts    wall thickness [m]
- * @param rho   material density [kg/m³]
- * @param headsAllowance  length added per diameter for the heads [-] (0.8 for two 2:1 elliptical heads)
- * @returns     [kg]
- * Validity: t_s ≪ D_i.
- * Source: seider2009 (from memory; confirm).
- * Example: D_i = 60 in, L = 600 in, t_s = 0.3125 in, ρ = 0.284 lb/in³ -> W = 10,897 lb.
- */
-export function shellMassSeider(Di: number, L: number, ts: number, rho: number, headsAllowance = 0.8): number {
-  return Math.PI * (Di + ts) * (L + headsAllowance * Di) * ts * rho
-}
-
-/**
  * Purchased cost of platforms and ladders of a tower.
  *
  * C_PL = a · D_i^p · L^q   (Seider: a = 300.9, p = 0.63316, q = 0.80161, D and L in ft, CE = 500)

@@ -20,12 +20,10 @@ import type { DesignResult, DesignSummary, EngineWarning } from '../contract.ts'
 import {
   capitalRecoveryFactor,
   costFromCurve,
-  minimumThickness,
   platformsCost,
-  shellMassSeider,
-  shellThicknessUG27,
   trayCountFactor,
 } from './correlations.ts'
+import { vesselShell } from '../vessel/shell.ts'
 
 const G = 9.80665 // m/s2, standard gravity
 const ATM = 101325 // Pa
@@ -122,7 +120,8 @@ function computeCost(s: DesignSummary, basis: CostBasisData, warnings: EngineWar
   const D = s.selectedDiameter
   const H = s.columnHeight
 
-  // --- shell: thickness and mass
+  // --- shell: thickness and mass, from the one vessel model (vessel/shell.ts). 'design' prices the
+  // shell the design shows; 'costBasis' runs the same model with the cost basis's material data.
   const designPressure = Math.max(s.designPressure, mat.minimumDesignPressure)
   let thickness: number
   let mass: number
@@ -130,11 +129,29 @@ function computeCost(s: DesignSummary, basis: CostBasisData, warnings: EngineWar
     thickness = s.shellThickness
     mass = s.shellMass
   } else {
-    const tMin = minimumThickness(D, mat.minimumThickness)
-    thickness = shellThicknessUG27(designPressure, D, mat.allowableStress, mat.jointEfficiency, mat.corrosionAllowance, tMin)
-    mass = shellMassSeider(D, H, thickness, mat.shellDensity, cor.shell.headsAllowance)
-    if (warnings && designPressure > 0.385 * mat.allowableStress * mat.jointEfficiency) {
-      warnings.push({ code: 'thickWall', path: 'materials.allowableStress', message: 'Design pressure exceeds the thin-wall limit 0.385·S·E; the shell thickness formula does not apply.' })
+    const v = vesselShell(
+      {
+        designPressure,
+        allowableStress: mat.allowableStress,
+        jointEfficiency: mat.jointEfficiency,
+        corrosionAllowance: mat.corrosionAllowance,
+        materialDensity: mat.shellDensity,
+        minimumThickness: mat.minimumThickness,
+      },
+      D,
+      H,
+    )
+    thickness = v.thickness
+    mass = v.mass
+    if (warnings) {
+      if (!v.thinWallValid) warnings.push({ code: 'thickWall', path: 'materials.allowableStress', message: 'The design pressure exceeds the thin-wall limit 0.385 S E: the shell thickness formula does not apply.' })
+      if (Math.abs(mass - s.shellMass) > 0.005 * s.shellMass) {
+        warnings.push({
+          code: 'shellMassFromCostBasis',
+          path: 'materials.shellMassSource',
+          message: `The shell is priced at ${Math.round(mass)} kg, from the cost basis's material data, while the design shows ${Math.round(s.shellMass)} kg from the case's vessel data (same vessel model)`,
+        })
+      }
     }
   }
   const shellSizeSI = cor.shell.sizeBasis === 'mass' ? mass : (Math.PI / 4) * D * D * H

@@ -30,15 +30,16 @@ export function flowParameter(L: number, G: number, rhoV: number, rhoL: number):
  */
 export function capacityFactorFair(t: number, FLV: number, warnings?: EngineWarning[], path?: string): number {
   if (warnings) {
-    checkRange(warnings, 'Fair flooding correlation', capacityFactorFairValidity[0], FLV, path)
-    checkRange(warnings, 'Fair flooding correlation', capacityFactorFairValidity[1], t, 'tray.spacing')
+    // one note per fact: below 0.1 the source's floor applies (0.1 is inside the range), so the
+    // range is checked only for the value actually used
     if (FLV < 0.1) {
       warnings.push({
         code: 'flowParameterFloored',
-        message: `Fair flooding correlation: F_LV = ${FLV.toFixed(4)} below 0.1; F_LV = 0.1 used as the source prescribes`,
+        message: `Fair flooding correlation: flow parameter F_LV = ${FLV.toFixed(4)} is below 0.1; 0.1 is used, as the source prescribes`,
         path,
       })
-    }
+    } else checkRange(warnings, 'Fair flooding correlation (flow parameter)', capacityFactorFairValidity[0], FLV, path)
+    checkRange(warnings, 'Fair flooding correlation (tray spacing)', capacityFactorFairValidity[1], t, 'tray.spacing')
   }
   const f = FLV < 0.1 ? 0.1 : FLV
   return (0.0744 * t + 0.01173) * Math.log10(1 / f) + (0.0304 * t + 0.015)

@@ -48,3 +48,48 @@ export function shellMass(D: number, L: number, t: number, rho: number): number 
   const Dm = D + t
   return rho * t * (Math.PI * Dm * L + 2 * 1.084 * Dm * Dm)
 }
+
+export interface VesselData {
+  /** design pressure, gauge [Pa] */
+  designPressure: number
+  /** allowable stress [Pa] */
+  allowableStress: number
+  /** joint efficiency [-] */
+  jointEfficiency: number
+  /** corrosion allowance [m] */
+  corrosionAllowance: number
+  /** shell material density [kg/m3] */
+  materialDensity: number
+  /** minimum wall for rigidity by diameter, including the corrosion allowance */
+  minimumThickness: readonly MinThicknessRow[]
+}
+
+export interface VesselShell {
+  /** thin-wall thickness incl. corrosion allowance [m] */
+  thicknessCalculated: number
+  /** minimum wall at this diameter [m] */
+  thicknessMinimum: number
+  /** the larger of the two [m] */
+  thickness: number
+  /** shell + two 2:1 heads [kg] */
+  mass: number
+  /** false when P > 0.385 S E or the pressure part of t exceeds R/2 (thick wall) */
+  thinWallValid: boolean
+}
+
+/**
+ * The one vessel model of the product: thickness t = max(P R/(S E - 0.6 P) + CA, t_min(D)) and
+ * the mass of the shell with two 2:1 heads. Used by the design and, with the cost basis's
+ * material data when it asks for them, by the costing.
+ * Source: asmeVIII1 UG-27(c)(1); minimum wall sinnott2005; mass commonPractice.
+ * Example: P 0.3 MPa, D 1.2 m, L 12 m, S 138 MPa, E 0.85, CA 3 mm, t_min 5 mm (D <= 1 m) / 7 mm
+ *   -> thickness 7 mm (minimum governs), mass 2,674 kg at 7850 kg/m3
+ */
+export function vesselShell(v: VesselData, D: number, L: number): VesselShell {
+  const R = 0.5 * D
+  const thicknessCalculated = shellThicknessThinWall(v.designPressure, R, v.allowableStress, v.jointEfficiency, v.corrosionAllowance)
+  const thicknessMinimum = minimumThickness(v.minimumThickness, D)
+  const thickness = thicknessCalculated > thicknessMinimum ? thicknessCalculated : thicknessMinimum
+  const thinWallValid = !(v.designPressure > 0.385 * v.allowableStress * v.jointEfficiency || thicknessCalculated - v.corrosionAllowance > 0.5 * R)
+  return { thicknessCalculated, thicknessMinimum, thickness, mass: shellMass(D, L, thickness, v.materialDensity), thinWallValid }
+}

@@ -40,6 +40,7 @@ export const checkResultSchema = z.object({
   status: z.enum(['pass', 'warn', 'fail']),
   value: z.number(),
   limit: z.number(),
+  direction: z.enum(['max', 'min']),
   unit: z.string(),
   advice: z.string().optional(),
   source: z.string().optional(),

@@ -14,7 +14,8 @@ import { rateBatchSchema, rateCaseSchema, type RateCaseInput, type RatingResult 
 import { toSI, UnitError, type QuantityInput, type QuantityKind } from '../../../shared/units.ts'
 import type { EngineWarning } from '../contract.ts'
 import { CASE_DEFAULTS, normaliseCase, type CaseSI, type ComponentLibrary } from '../case.ts'
-import { CONCENTRATED_GAS_LIMIT, equilibriumCurveOf } from '../design.ts'
+import { equilibriumCurveOf } from '../column/equilibrium.ts'
+import { chooseMethod } from '../column/balances.ts'
 import { InfeasibleDesignError, InvalidInputError } from '../errors.ts'
 import { efficiencyOConnell } from '../efficiency/oconnell.ts'
 import { densityIdealGas } from '../properties/gas.ts'
@@ -145,13 +146,13 @@ export function balanceOf(c: CaseSI, L0: number, warnings?: EngineWarning[]): { 
   if (!(xStar > 0 && xStar < 0.99) || Math.abs(eq.y(xStar) - yIn) > 1e-7 * yIn) {
     throw new InfeasibleDesignError([{ path: 'equilibrium', code: 'equilibriumOutOfRange', message: `No liquid is in equilibrium with the inlet gas (y = ${yIn}); the equilibrium model does not apply at this composition` }])
   }
-  let method: 'kremser' | 'stageByStage'
-  if (c.method === 'auto') method = !eq.linear || yIn > CONCENTRATED_GAS_LIMIT ? 'stageByStage' : 'kremser'
-  else method = c.method
-  if (warnings && method === 'kremser' && (!eq.linear || yIn > CONCENTRATED_GAS_LIMIT)) {
-    warnings.push({ code: 'kremserOutsideValidity', message: 'Kremser used outside its validity (curved equilibrium or concentrated gas); stage-by-stage is recommended', path: 'method' })
-  }
-  return { b: { eq, method, K0: eqb.K0, V: c.gas.flow, yIn, L0, x0: c.solvent.soluteMoleFraction }, linear: eq.linear }
+  const x0 = c.solvent.soluteMoleFraction
+  const X0 = x0 / (1 - x0)
+  // the same choice of method as the design, with its note
+  const choice = chooseMethod(c.method, eq, yIn, xStar, X0, xStar / (1 - xStar))
+  const method = choice.method
+  if (warnings && method === 'kremser' && !choice.kremserValid) warnings.push({ code: 'kremserOutsideValidity', message: choice.note, path: 'method' })
+  return { b: { eq, method, K0: eqb.K0, V: c.gas.flow, yIn, L0, x0 }, linear: eq.linear }
 }
 
 /**

@@ -60,10 +60,12 @@ const KEYS: WindowBoundaryKey[] = ['flooding', 'entrainment', 'weeping', 'downco
 
 /**
  * Gas scale at which one limit is reached, at liquid scale fL, searched in [lo, hi].
- * Upper limits are searched from the top down (the largest gas rate inside the limit: at
- * very low gas rates the flow parameter leaves the range of the Fair chart), weeping from
- * the bottom up; a geometric scan brackets the crossing, bisection refines it. Returns null
- * when the limit is not crossed in the range; lo when the whole range is beyond an upper limit.
+ * The search starts at the rated gas rate (scale 1) and walks outward geometrically to the
+ * first crossing, which bisection then refines: the crossing nearest the rated point, never a
+ * spurious one far outside the correlations' ranges (at very low gas rates the flow parameter
+ * leaves the Fair chart; at very high ones the froth correlations lose meaning).
+ * Returns null when the limit is not crossed in the range; for an upper limit already passed
+ * over the whole range, lo.
  */
 function crossing(key: WindowBoundaryKey, base: { bot: EndStreams; top: EndStreams }, g: TrayGeometry, fL: number, lo: number, hi: number, p: Probe): number | null {
   const inside = (fG: number) => {
@@ -72,34 +74,25 @@ function crossing(key: WindowBoundaryKey, base: { bot: EndStreams; top: EndStrea
   }
   const upper = SIDES[key].side === 'upper'
   const step = 1.5
+  const start = Math.min(Math.max(1, lo), hi)
+  const in0 = inside(start)
+  // direction of the walk: towards the limit
+  const up = upper ? in0 : !in0
+  let x = start
   let a: number // inside
   let b: number // outside
-  if (upper) {
-    if (inside(hi)) return null
-    let x = hi
-    for (;;) {
-      const y = x / step
-      if (y < lo) return lo
-      if (inside(y)) {
-        a = y
-        b = x
-        break
-      }
-      x = y
+  for (;;) {
+    const y = up ? x * step : x / step
+    if (y > hi || y < lo) {
+      if (upper && !in0) return lo // beyond the upper limit all the way down
+      return null
     }
-  } else {
-    if (inside(lo)) return null
-    let x = lo
-    for (;;) {
-      const y = x * step
-      if (y > hi) return null
-      if (inside(y)) {
-        a = y
-        b = x
-        break
-      }
-      x = y
+    if (inside(y) !== in0) {
+      a = in0 ? x : y
+      b = in0 ? y : x
+      break
     }
+    x = y
   }
   let la = Math.log(a)
   let lb = Math.log(b)

@@ -20,8 +20,11 @@ export interface CheckResult {
   status: 'pass' | 'warn' | 'fail'
   value: number
   limit: number
+  /** 'max': the value must stay at or below the limit; 'min': at or above it */
+  direction?: 'max' | 'min'
   unit: string
   advice?: string
+  source?: string
 }
 
 export interface EngineWarning {
@@ -66,6 +69,7 @@ export interface DesignSummary {
   shellThickness: number
   shellMass: number
   percentFlood: number
+  fractionOfFloodTarget: number // absent on runs stored before it existed: read with ?? floodFraction
   [k: string]: number
 }
 
@@ -116,6 +120,10 @@ export interface DesignResult {
   cautions: string[]
   profile: {
     method: 'kremser' | 'stageByStage'
+    methodNote?: string
+    theoreticalStages?: number
+    lastStageFraction?: number
+    lastStageConvention?: string
     stages: { stage: number; x: number; y: number }[]
     equilibriumCurve: XY[]
     operatingLine: XY[]
@@ -140,8 +148,23 @@ export interface SensitivityRow {
   label: string
   unit?: string
   baseValue?: number
-  low: { value?: number; tac: number; recovery: number; solventFactor?: number }
-  high: { value?: number; tac: number; recovery: number; solventFactor?: number }
+  lowValue?: number
+  highValue?: number
+  lowChange?: number
+  highChange?: number
+  lowLimited?: boolean
+  highLimited?: boolean
+  lowNote?: string
+  highNote?: string
+  low: { value?: number; tac: number; repricedTac?: number; recovery: number; solventFactor?: number }
+  high: { value?: number; tac: number; repricedTac?: number; recovery: number; solventFactor?: number }
+}
+
+export interface BoundHit {
+  variable: 'recovery' | 'solventFactor' | 'floodFraction' | 'traySpacing'
+  bound: 'lower' | 'upper'
+  value: number
+  advice: string
 }
 
 export interface OptimizeResult {
@@ -159,6 +182,7 @@ export interface OptimizeResult {
   evaluations: number
   curves: { recovery: CurvePoint[]; solventFactor: CurvePoint[] }
   sensitivity: SensitivityRow[]
+  boundHits?: BoundHit[]
   cautions?: string[]
   bounds?: { recovery: [number, number]; solventFactor: [number, number]; floodFraction: [number, number]; traySpacings: number[] }
 }

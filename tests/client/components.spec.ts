@@ -35,7 +35,7 @@ describe('AppNumberField with a percentage scale', () => {
 
 describe('StudyTrayChecks', () => {
   const checks: CheckResult[] = [
-    { key: 'pressureDropPerTray', label: 'Pressure drop per tray', status: 'pass', value: 498.17782, limit: 1000, unit: 'Pa' },
+    { key: 'pressureDropPerTray', label: 'Pressure drop per tray', status: 'pass', value: 498.17782, limit: 1000, direction: 'max', unit: 'Pa' },
     { key: 'downcomerBackup', label: 'Downcomer backup', status: 'warn', value: 0.254, limit: 0.3, unit: 'm', advice: 'Increase the tray spacing' },
     { key: 'entrainment', label: 'Fractional entrainment', status: 'fail', value: 0.15, limit: 0.1, unit: '-', advice: 'Lower the fraction of flood' },
   ]
@@ -67,6 +67,17 @@ describe('StudyTrayChecks', () => {
     expect(cells(1)[1]).toBe('10') // 0.254 m / 0.0254 = 10 in
     expect(cells(1)[3]).toBe('in')
     expect(cells(2)[3]).toBe('–')
+  })
+
+  it('shows each limit with its direction: at most for a maximum, at least for a minimum', async () => {
+    useSessionStore().user = demoUser()
+    await useUnitsStore().ensureLoaded()
+    const withMin: CheckResult[] = [...checks, { key: 'weeping', label: 'Weeping (hole Froude number)', status: 'pass', value: 2.37, limit: 0.5, direction: 'min', unit: '-' }]
+    const w = mount(StudyTrayChecks, { props: { checks: withMin }, global: { plugins: [pinia, testVuetify()] } })
+    await flushPromises()
+    const cells = (i: number) => w.findAll('tbody tr')[i]?.findAll('td').map((c) => c.text()) ?? []
+    expect(cells(0)[2]).toMatch(/^\u2264 1[,\u202f ]?000$/)
+    expect(cells(3)[2]).toBe('\u2265 0.5')
   })
 })
 

@@ -66,7 +66,7 @@ function reference(eq: EquilibriumCurve, YIn: number, Y1: number, X0: number, fa
   const tangent = bestX < XN * (1 - 1e-6)
   const s = factor * best
   // stepping from the top
-  let Yprev = Yof(eq, X0)
+  const Yprev = Yof(eq, X0)
   let Y = Y1
   let dPrev = Y - Yprev
   for (let k = 1; k < 5000; k++) {

@@ -7,6 +7,7 @@ import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
 import type { SearchSpec } from '../../../shared/schemas/search.ts'
 import type { CaseSI } from '../case.ts'
 import { InfeasibleDesignError } from '../errors.ts'
+import { boundHits } from './bounds.ts'
 import {
   Evaluator,
   curve,
@@ -88,11 +89,12 @@ export function optimiseWith(
   let feasibleCount = 0
   for (const v of ev.raw.values()) if (typeof v !== "string" && ev.rejects(v) === null) feasibleCount++
 
+  const traySpacing = search.traySpacings[found.x.t] ?? d.summary.traySpacing
   return {
     optimum: {
       recovery: toRecovery(found.x.u),
       solventFactor: found.x.s,
-      traySpacing: search.traySpacings[found.x.t] ?? d.summary.traySpacing,
+      traySpacing,
       floodFraction: found.x.f,
       actualTrays: d.summary.actualTrays,
       selectedDiameter: d.summary.selectedDiameter,
@@ -109,6 +111,7 @@ export function optimiseWith(
     },
     curves,
     sensitivity: sens,
+    boundHits: boundHits({ recovery: toRecovery(found.x.u), solventFactor: found.x.s, floodFraction: found.x.f, traySpacing }, search, [rLo, rHi]),
     stats: {
       searchEvaluations,
       curveEvaluations,

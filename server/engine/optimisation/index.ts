@@ -17,4 +17,6 @@ export {
   type OptimiseResult,
   type OptimumPoint,
   type SensitivityEntry,
+  type BoundHit,
 } from './core.ts'
+export { boundHits, BOUND_TOLERANCE } from './bounds.ts'

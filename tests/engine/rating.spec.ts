@@ -203,6 +203,15 @@ describe('Rating: bad input is refused with the field path', () => {
       expect((err as InvalidInputError).path.startsWith(path)).toBe(true)
     })
   }
+  it('a liquid load beyond the flooding correlation is refused with a reason, not a NaN', () => {
+    let err: unknown
+    try {
+      rateCase({ ...base, solventFlow: (base.solventFlow as number) * 2000 })
+    } catch (e) {
+      err = e
+    }
+    expect((err as { issues: { code: string; path: string }[] }).issues[0]).toMatchObject({ code: 'flooding', path: 'solventFlow' })
+  })
   it('batch errors carry the case index', () => {
     expect(() => rateBatch({ cases: [base, { ...base, solventFlow: -2 }] })).toThrow(/cases\.1\.solventFlow/)
   })

@@ -289,6 +289,11 @@ export function rateSI(r: RateCaseSI, opts?: RateOptions): RatingResult {
   const sb = trayStateAt(bot, g)
   const st = trayStateAt(top, g)
   const w = worstEnd(sb, st)
+  if (!Number.isFinite(w.fractionFlood)) {
+    throw new InfeasibleDesignError([
+      { path: 'solventFlow', code: 'flooding', message: `The liquid load is beyond the flooding correlation (flow parameter ${Math.max(sb.FLV, st.FLV).toFixed(2)}): the column floods with this much solvent for this gas` },
+    ])
+  }
   // Fair validity warnings, once, at the end nearer flood
   const fEnd = sb.fractionFlood >= st.fractionFlood ? sb : st
   capacityFactorFair(g.t, fEnd.FLV, warnings, 'flowParameter')

@@ -2,7 +2,7 @@ import { UniqueConstraintError } from 'sequelize'
 import Papa from 'papaparse'
 import { sequelize } from '../db/sequelize.ts'
 import { OperatingEntry, Study, Run } from '../db/models/index.ts'
-import { ConflictError, NotFoundError, ValidationError, InfeasibleError, type ErrorDetail } from '../errors.ts'
+import { AppError, ConflictError, NotFoundError, ValidationError, InfeasibleError, type ErrorDetail } from '../errors.ts'
 import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
 import { siteLibrary } from './runs.ts'
@@ -56,6 +56,7 @@ export async function listEntries(siteId: number, studyId: number) {
   let months: MonthResult[] = []
   let design: { summary: DesignSummary; runId: number; costBasisVersion: number | null } | null = null
   let monitoring: MonitoringView | null = null
+  let monitoringIssue: string | null = null
   const pricedBases: CostBasisData[] = []
   if (s.status === 'approved' && entries.length) {
     const d = await approvedDesign(s)
@@ -85,17 +86,23 @@ export async function listEntries(siteId: number, studyId: number) {
       months.push({ ...m, month: m.month.slice(0, 7), costBasisVersion: b.version } as MonthResult & { costBasisVersion: number })
       pricedBases.push(basis)
     }
-    monitoring = await monitoringOf(
-      siteId,
-      d.run,
-      d.summary,
-      library,
-      entries.map((e) => ({ month: e.month.slice(0, 7), gasFlow: e.gasFlow, solventFlow: e.solventFlow, inletMoleFraction: e.inletMoleFraction ?? null })),
-      months.map((m, i) => ({ ...m, basis: pricedBases[i]! })),
-    )
+    // The rating of the months never stops the log from answering: a failure is reported beside it.
+    try {
+      monitoring = await monitoringOf(
+        siteId,
+        d.run,
+        d.summary,
+        library,
+        entries.map((e) => ({ month: e.month.slice(0, 7), gasFlow: e.gasFlow, solventFlow: e.solventFlow, inletMoleFraction: e.inletMoleFraction ?? null })),
+        months.map((m, i) => ({ ...m, basis: pricedBases[i]! })),
+      )
+    } catch (e) {
+      if (!(e instanceof AppError)) throw e
+      monitoringIssue = e.message + (e.details.length ? `: ${e.details.map((x) => x.message).join('; ')}` : '')
+    }
   }
   const toDate = months.reduce((a, m) => ({ actual: a.actual + m.actual.total, design: a.design + m.design.total, gap: a.gap + m.gap }), { actual: 0, design: 0, gap: 0 })
-  return { entries: entries.map(entryView), months, toDate, design, monitoring }
+  return { entries: entries.map(entryView), months, toDate, design, monitoring, monitoringIssue }
 }
 
 function toRow(studyId: number, e: OperatingEntryBody, actor: AuthUser) {

@@ -55,6 +55,8 @@ export interface OperatingLog {
   design: { summary: Record<string, number>; runId: number; costBasisVersion: number | null } | null
   /** Each month rated with the as-built column (null before the first month). */
   monitoring?: Monitoring | null
+  /** Why the months could not be rated with the built column, when they could not. */
+  monitoringIssue?: string | null
 }
 
 const base = (siteId: number, studyId: number) => `/sites/${siteId}/studies/${studyId}/operating-entries`

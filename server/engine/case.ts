@@ -10,202 +10,24 @@
  * and checks signs and ranges, throwing InvalidInputError with the field path.
  */
 import type { CaseInput } from '../../shared/schemas/case.ts'
-import { toSI, UnitError, type QuantityInput, type QuantityKind } from '../../shared/units.ts'
-import type { EngineWarning } from './contract.ts'
 import { InvalidInputError } from './errors.ts'
+import type { EngineWarning } from './contract.ts'
 import { densityWater, surfaceTensionWater, viscosityWater } from './properties/water.ts'
 import { MMHG } from './properties/constants.ts'
 import { validateTable } from './equilibrium/models.ts'
-import { DEFAULT_SPACING_RULE, type SpacingRuleRow } from './hydraulics/flooding.ts'
-import { DEFAULT_MIN_THICKNESS, type MinThicknessRow } from './vessel/shell.ts'
+import { findComponent, type ComponentLibrary, type LibraryComponent } from './caseParts/library.ts'
 import type { AntoineSI } from './properties/vapourPressure.ts'
+import type { QuantityInput, QuantityKind } from '../../shared/units.ts'
+import { DEFAULT_SPACING_RULE, type SpacingRuleRow } from './hydraulics/flooding.ts'
+import { DEFAULT_MIN_THICKNESS } from './vessel/shell.ts'
+import type { CaseSI, EquilibriumSI } from './caseParts/types.ts'
+import { CASE_DEFAULTS } from './caseParts/defaults.ts'
+import { HAZARD_CAUTIONS, cap } from './caseParts/hazards.ts'
+import { Ctx, nonNeg } from './caseParts/checks.ts'
 
-// ---------------------------------------------------------------- library types
-
-export interface LibraryValue<T = number> {
-  value: T
-  unit?: string
-  temperature?: number
-  source: string
-}
-export interface LibraryComponent {
-  aliases?: string[]
-  cas?: string
-  formula?: string
-  molarMass?: LibraryValue
-  henry?: { Hcp: number; B: number; source: string }
-  antoine?: { A: number; B: number; C: number; Tmin: number; Tmax: number; source: string }
-  gammaInfWater?: LibraryValue
-  gasViscosity?: LibraryValue
-  liquidCorrelations?: LibraryValue<string>
-  notes?: LibraryValue<string>
-  hazards?: { flags: string[]; source: string }
-}
-export interface ComponentLibrary {
-  schemaVersion?: number
-  description?: string
-  components: Record<string, LibraryComponent>
-}
-
-/** Find a component by name or alias (case-insensitive). Returns [canonical name, data]. */
-export function findComponent(lib: ComponentLibrary, name: string): [string, LibraryComponent] | null {
-  const n = name.trim().toLowerCase()
-  for (const key of Object.keys(lib.components)) {
-    const c = lib.components[key]!
-    if (key.toLowerCase() === n) return [key, c]
-    if (c.aliases && c.aliases.some((a) => a.toLowerCase() === n)) return [key, c]
-  }
-  return null
-}
-
-/** A library with site components added (site entries replace library entries of the same name). */
-export function mergeLibraries(base: ComponentLibrary, extra: ComponentLibrary | undefined): ComponentLibrary {
-  if (!extra) return base
-  return { ...base, components: { ...base.components, ...extra.components } }
-}
-
-// ---------------------------------------------------------------- CaseSI
-
-export type EquilibriumSI =
-  | { model: 'constantK'; K: number }
-  | { model: 'henry'; Hcp: number; B: number }
-  | {
-      model: 'modifiedRaoult'
-      gammaInf: number
-      activityModel: 'constant' | 'margules'
-      antoine: AntoineSI | null
-      /** fixed vapour pressure at column T [Pa], overrides antoine */
-      vapourPressure: number | null
-    }
-  | { model: 'table'; x: number[]; y: number[] }
-
-export interface CaseSI {
-  name?: string
-  gas: {
-    flow: number // mol/s, total inlet gas
-    temperature: number // K, inlet gas
-    pressure: number // Pa abs, column (inlet) pressure
-    soluteMoleFraction: number // y_{N+1}
-    carrierMolarMass: number // kg/mol
-    carrierName: string | null
-    viscosity: number | null // Pa s (information; not used by the correlations chosen)
-  }
-  solute: { name: string | null; molarMass: number; hazards: string[] }
-  solvent: {
-    name: string | null
-    temperature: number // K, inlet
-    soluteMoleFraction: number // x0
-    molarMass: number // kg/mol
-    density: number // kg/m3
-    viscosity: number // Pa s
-    surfaceTension: number // N/m
-  }
-  equilibrium: EquilibriumSI
-  /** Temperature for equilibrium and liquid properties [K] (default: solvent inlet temperature). */
-  columnTemperature: number
-  recovery: number
-  solventFactor: number
-  tray: {
-    holeDiameter: number // m
-    holePitch: number // m
-    thickness: number // m
-    spacing: number | 'auto' // m
-    floodFraction: number
-    foamingFactor: number
-    weirHeight: number // m
-    downcomerClearance: number // m (apron clearance under the downcomer)
-    turndownFraction: number // lowest gas rate as a fraction of design, for the weeping check
-    spacingRule: SpacingRuleRow[]
-  }
-  efficiency: { model: 'oconnell' } | { model: 'fixed'; value: number }
-  method: 'auto' | 'kremser' | 'stageByStage'
-  column: { diameterStep: number; topAllowance: number; bottomAllowance: number }
-  vessel: {
-    designPressure: number // Pa gauge
-    allowableStress: number // Pa
-    jointEfficiency: number
-    corrosionAllowance: number // m
-    materialDensity: number // kg/m3
-    minimumThickness: MinThicknessRow[]
-  }
-  /** Notes from normalisation (defaults taken, library values used), passed on as warnings. */
-  warnings: EngineWarning[]
-  /** Hazard cautions from the library (solute and carrier). */
-  cautions: string[]
-}
-
-// ---------------------------------------------------------------- defaults
-
-/** Defaults of optional fields; documented in data/examples/README.md. */
-export const CASE_DEFAULTS = {
-  tray: {
-    holeDiameter: 0.0045, // m, common practice 3-6 mm (4.5 mm typical)
-    holePitch: 0.012, // m, 2.5-3 d_o
-    thickness: 0.002, // m
-    spacing: 'auto' as const,
-    floodFraction: 0.8, // common practice (Benitez/Treybal examples)
-    foamingFactor: 1.0, // non-foaming
-    weirHeight: 0.05, // m, Sinnott: 40-50 mm above atmospheric pressure
-    downcomerClearanceBelowWeir: 0.01, // m: apron clearance = weir height - 10 mm (common practice)
-    turndownFraction: 0.5, // sieve trays turn down to about 50 % of design gas before weeping (common practice)
-  },
-  column: {
-    diameterStep: 0.05, // m, common practice
-    topAllowance: 1.0, // m above the top tray (Benitez Illus. 6.7)
-    bottomAllowance: 3.0, // m below the bottom tray (Benitez Illus. 6.7)
-  },
-  vessel: {
-    designPressureMarginFactor: 1.1, // design = max(1.1 x operating gauge, operating gauge + 170 kPa): common practice
-    designPressureMarginAdd: 170e3, // Pa
-    allowableStress: 138e6, // Pa, carbon steel SA-516-70 near ambient (from memory)
-    jointEfficiency: 0.85, // spot radiography
-    corrosionAllowance: 0.003, // m
-    materialDensity: 7850, // kg/m3 carbon steel
-  },
-}
-
-const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1)
-const HAZARD_CAUTIONS: Record<string, (name: string, role: string) => string> = {
-  flammable: (n) =>
-    `${n} is flammable: the vent gas and the vapour space can be within flammable limits; classify the area, control ignition sources and ventilate.`,
-  toxic: (n) => `${n} is toxic: check exposure limits, leak detection and the fate of the unabsorbed ${n} in the vent.`,
-  corrosive: (n) => `${n} is corrosive: check materials of construction.`,
-  asphyxiant: (n) =>
-    `${n} is an asphyxiant: the vent must discharge where it cannot accumulate; confined-space entry rules apply to the column.`,
-}
-
-// ---------------------------------------------------------------- normalise
-
-class Ctx {
-  warnings: EngineWarning[] = []
-  q(kind: QuantityKind, v: QuantityInput, path: string): number {
-    try {
-      return toSI(kind, v)
-    } catch (e) {
-      if (e instanceof UnitError) throw new InvalidInputError(path, e.message)
-      throw e
-    }
-  }
-  positive(v: number, path: string, what = 'must be a positive number'): number {
-    if (!Number.isFinite(v) || v <= 0) throw new InvalidInputError(path, `${what} (got ${v})`)
-    return v
-  }
-  range(v: number, lo: number, hi: number, path: string, loOpen = false, hiOpen = false): number {
-    const okLo = loOpen ? v > lo : v >= lo
-    const okHi = hiOpen ? v < hi : v <= hi
-    if (!Number.isFinite(v) || !okLo || !okHi) {
-      throw new InvalidInputError(path, `must be within ${loOpen ? '(' : '['}${lo}, ${hi}${hiOpen ? ')' : ']'} (got ${v})`)
-    }
-    return v
-  }
-  absTemp(v: number, path: string): number {
-    if (!Number.isFinite(v) || v <= 0) throw new InvalidInputError(path, `temperature must be above absolute zero (got ${v} K)`)
-    return v
-  }
-  note(message: string, path?: string) {
-    this.warnings.push({ code: 'defaultUsed', message, path })
-  }
-}
+export { findComponent, mergeLibraries, type ComponentLibrary, type LibraryComponent, type LibraryValue } from './caseParts/library.ts'
+export type { CaseSI, EquilibriumSI } from './caseParts/types.ts'
+export { CASE_DEFAULTS } from './caseParts/defaults.ts'
 
 /**
  * Resolve names, apply defaults, convert to SI and check the input.
@@ -462,9 +284,4 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
     warnings: c.warnings,
     cautions,
   }
-}
-
-function nonNeg(v: number, path: string): number {
-  if (!Number.isFinite(v) || v < 0) throw new InvalidInputError(path, `must be a number >= 0 (got ${v})`)
-  return v
 }

@@ -51,7 +51,7 @@ export function stagesKremser(yIn: number, yOut: number, Kx0: number, A: number)
 /**
  * Stages from the fraction not absorbed phi (x0 = 0).
  * Equation: N = ln(1 + (A - 1)/phi)/ln A - 1
- * Source: kremser1930 (fraction-not-absorbed form). Example: (1.4, 0.05) -> 5.5302
+ * Source: kremser1930 (fraction-not-absorbed form). Example: stagesFromUnabsorbedKremser(1.4, 0.05) = 5.5302
  */
 export function stagesFromUnabsorbedKremser(A: number, phi: number): number {
   return stagesKremser(1, phi, 0, A)

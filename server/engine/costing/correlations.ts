@@ -6,18 +6,6 @@
  */
 import type { CostCurveData } from '../../../shared/schemas/costBasis.ts'
 
-/** A validity range as data: [min, max] in the unit named. */
-export interface ValidityRange {
-  min: number
-  max: number
-  unit: string
-}
-
-/** Inside the range (inclusive)? Used to raise warnings; values are never clamped. */
-export function inRange(value: number, r: ValidityRange): boolean {
-  return value >= r.min && value <= r.max
-}
-
 /**
  * Purchased cost from a generic published cost curve.
  *
@@ -41,11 +29,6 @@ export function costFromCurve(sizeSI: number, curve: CostCurveData): number {
   for (let k = c.length - 1; k >= 0; k--) poly = poly * L + (c[k] ?? 0)
   poly += curve.linearCoefficient * S
   return curve.multiplier * (curve.logBase === 'e' ? Math.exp(poly) : Math.pow(10, poly))
-}
-
-/** The size in the curve's own unit, for validity checks and display. */
-export function curveSize(sizeSI: number, curve: CostCurveData): number {
-  return sizeSI * curve.sizeFactor
 }
 
 /**

@@ -21,7 +21,7 @@ export const LB_PER_FT3 = 16.018463373960138
  *   bubble-cap data, slightly conservative for sieve trays; Ludwig warns the absorber
  *   chart can predict too high. Properties at the mean column temperature.
  * Source: oconnell1946, fit as given by seaderHenley2011 (from memory).
- * Example: K 0.57, M 18.02 g/mol, mu 0.797 cP, rho 62.18 lb/ft3 -> group 0.13166, E_o = 0.504
+ * Example: efficiencyOConnell(0.57, 0.01802, 0.000797, 996.03) = 0.504 (group 0.13166: M 18.02 g/mol, 0.797 cP, 62.18 lb/ft3)
  */
 export function efficiencyOConnell(K: number, ML: number, muL: number, rhoL: number, warnings?: EngineWarning[], path?: string): number {
   const g = oconnellGroup(K, ML, muL, rhoL)

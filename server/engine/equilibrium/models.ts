@@ -46,7 +46,7 @@ export class LinearEquilibrium implements EquilibriumCurve {
  * Validity: about 0-60 degC for the library values (the van 't Hoff form assumes a
  *   constant enthalpy of solution).
  * Source: sander2015, sander2023.
- * Example: ethanol H0 = 1.9, B = 6400 at 293.15 K -> 2.740 mol/(m3 Pa)
+ * Example: henryAtT(1.9, 6400, 293.15) = 2.740 mol/(m3 Pa) (ethanol at 20 degC)
  */
 export function henryAtT(H0: number, B: number, T: number, warnings?: EngineWarning[], path?: string): number {
   checkRange(warnings, "Henry's law van 't Hoff form", henryValidity, T, path)
@@ -63,7 +63,7 @@ export const henryValidity: ValidityRange = { arg: 'T', min: 273.15, max: 333.15
  * @param P total pressure [Pa]
  * Validity: dilute solute (x < about 0.05).
  * Source: sander2015 (definitions); the check values are derived from them (tag D).
- * Example: ethanol at 25 degC, 101.325 kPa: Hcp 1.9, cw 55344 -> K = 0.2875
+ * Example: kFromHenry(1.9, 55344, 101325) = 0.2875 (ethanol at 25 degC, 1 atm)
  */
 export function kFromHenry(Hcp: number, cw: number, P: number): number {
   return cw / (Hcp * P)

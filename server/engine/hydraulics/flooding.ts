@@ -9,7 +9,7 @@ import { checkRange, type ValidityRange } from '../numerics/validity.ts'
  * Equation: F_LV = (L/G) (rho_G/rho_L)^0.5, L and G mass flows
  * @param L liquid mass flow [kg/s]; @param G gas mass flow [kg/s]
  * @param rhoV gas density [kg/m3]; @param rhoL liquid density [kg/m3]
- * Source: fair1961 via treybal1980 ch. 6. Example: L/G = 2, rhoV 1.8, rhoL 995 -> 0.08507
+ * Source: fair1961 via treybal1980 ch. 6. Example: flowParameter(2, 1, 1.8, 995) = 0.08507
  */
 export function flowParameter(L: number, G: number, rhoV: number, rhoL: number): number {
   return (L / G) * Math.sqrt(rhoV / rhoL)
@@ -26,7 +26,7 @@ export function flowParameter(L: number, G: number, rhoV: number, rhoL: number):
  * Validity: F_LV 0.01-1 (chart), t 0.15-0.9 m; low- or non-foaming; weir < 15 % of
  *   spacing; holes <= 13 mm.
  * Source: fair1961 via treybal1980 Table 6.2 / benitez2009 eqs 4.29-4.32.
- * Example: t 0.5, F_LV <= 0.1 -> 0.07913 m/s
+ * Example: capacityFactorFair(0.5, 0.05) = 0.07913 m/s (F_LV floored at 0.1)
  */
 export function capacityFactorFair(t: number, FLV: number, warnings?: EngineWarning[], path?: string): number {
   if (warnings) {
@@ -53,7 +53,7 @@ export const capacityFactorFairValidity: readonly [ValidityRange, ValidityRange]
  * Surface-tension factor. Equation: F_ST = (sigma/20)^0.2, sigma in dyn/cm (mN/m).
  * @param sigma surface tension [N/m]
  * Source: fair1961 via treybal1980 ((sigma/0.020)^0.2 with sigma in N/m).
- * Example: sigma 0.070 N/m -> 1.2847
+ * Example: surfaceTensionFactor(0.07) = 1.2847
  */
 export function surfaceTensionFactor(sigma: number): number {
   return Math.pow(sigma / 0.02, 0.2)
@@ -64,7 +64,7 @@ export function surfaceTensionFactor(sigma: number): number {
  * @param AhAa hole area / active area [-]
  * Validity: A_h/A_a >= 0.06 (below: extrapolated with a warning).
  * Source: treybal1980 Table 6.2 notes; agrees with Ludwig's table (0.10 -> 1.00, 0.08 -> 0.90, 0.06 -> 0.80).
- * Example: 0.08 -> 0.90
+ * Example: holeAreaFactor(0.08) = 0.90
  */
 export function holeAreaFactor(AhAa: number, warnings?: EngineWarning[], path?: string): number {
   checkRange(warnings, 'Hole-area factor', holeAreaFactorValidity, AhAa, path)
@@ -76,7 +76,7 @@ export const holeAreaFactorValidity: ValidityRange = { arg: 'A_h/A_a', min: 0.06
  * Hole area / active area for triangular pitch.
  * Equation: A_h/A_a = 0.907 (d_o/p)^2
  * @param dO hole diameter [m]; @param p pitch [m]
- * Source: treybal1980 eq. 6.31; benitez2009 eq. 4.35. Example: 4.5 mm / 12 mm -> 0.12755
+ * Source: treybal1980 eq. 6.31; benitez2009 eq. 4.35. Example: holeAreaFractionTriangular(0.0045, 0.012) = 0.12755
  */
 export function holeAreaFractionTriangular(dO: number, p: number): number {
   const r = dO / p
@@ -87,7 +87,7 @@ export function holeAreaFractionTriangular(dO: number, p: number): number {
  * Downcomer area / tower area from the flow parameter.
  * Equation: A_d/A_t = 0.10 (F_LV <= 0.1); 0.1 + (F_LV - 0.1)/9 (0.1-1.0); 0.2 (F_LV >= 1)
  * Source: benitez2009 eq. 4.34 (F_LV <= 0.1); the rest from memory.
- * Example: F_LV 0.55 -> 0.15
+ * Example: downcomerAreaFraction(0.55) = 0.15
  */
 export function downcomerAreaFraction(FLV: number): number {
   if (FLV <= 0.1) return 0.1
@@ -98,7 +98,7 @@ export function downcomerAreaFraction(FLV: number): number {
 /**
  * Flooding velocity on the net area.
  * Equation: v_F = C [(rho_L - rho_V)/rho_V]^0.5
- * Source: fair1961 via treybal1980. Example: C 0.0909, rhoL 961, rhoV 0.67928 -> 3.4177 m/s
+ * Source: fair1961 via treybal1980. Example: floodingVelocity(0.090897, 961, 0.67928) = 3.4177 m/s
  */
 export function floodingVelocity(C: number, rhoL: number, rhoV: number): number {
   return C * Math.sqrt((rhoL - rhoV) / rhoV)
@@ -109,7 +109,7 @@ export function floodingVelocity(C: number, rhoL: number, rhoV: number): number 
  * Equation: D = [4 Q / (f v_F pi (1 - A_d/A_t))]^0.5
  * @param Q gas volumetric flow [m3/s]; @param f fraction of flood [-]
  * @param vF flooding velocity [m/s]; @param AdAt downcomer area fraction [-]
- * Source: benitez2009 eq. 4.33. Example: Q 3.0208, f 0.8, vF 3.4177, AdAt 0.088 -> 1.242 m (Treybal Illus. 6.3)
+ * Source: benitez2009 eq. 4.33. Example: diameterFromFlooding(3.0208, 0.8, 3.4177, 0.088) = 1.242 m (Treybal Illus. 6.3)
  */
 export function diameterFromFlooding(Q: number, f: number, vF: number, AdAt: number): number {
   return Math.sqrt((4 * Q) / (f * vF * Math.PI * (1 - AdAt)))

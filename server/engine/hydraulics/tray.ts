@@ -10,7 +10,7 @@ import type { ValidityRange } from '../numerics/validity.ts'
  * Equation: C_o = 0.85032 - 0.04231 (d_o/l) + 0.0017954 (d_o/l)^2
  * @param dO hole diameter [m]; @param l plate thickness [m]
  * Validity: d_o/l >= 1 (and up to about 12 in the chart).
- * Source: benitez2009 ch. 4 (Illus. 4.7). Example: d_o/l = 2.25 -> 0.76422
+ * Source: benitez2009 ch. 4 (Illus. 4.7). Example: orificeCoefficient(0.0045, 0.002) = 0.76421 (d_o/l = 2.25)
  */
 export function orificeCoefficient(dO: number, l: number): number {
   const r = dO / l
@@ -24,7 +24,7 @@ export const orificeCoefficientValidity: ValidityRange = { arg: 'd_o/l', min: 1,
  * SI form used: h_d[m] = (v_o/C_o)^2 rho_V / (2 g rho_L) (1 - (A_h/A_a)^2)   (0.0051 ~ 100/(2 g 1000))
  * @param vo hole velocity [m/s]; @param Co orifice coefficient [-]
  * @param rhoV, rhoL densities [kg/m3]; @param AhAa hole/active area [-]
- * Source: benitez2009 ch. 4 (Illus. 4.7). Example: vo 10, Co 0.75, rhoV 1.2, rhoL 1000, AhAa 0.1 -> 0.010768 m
+ * Source: benitez2009 ch. 4 (Illus. 4.7). Example: dryTrayHead(10, 0.75, 1.2, 1000, 0.1) = 0.010768 m
  */
 export function dryTrayHead(vo: number, Co: number, rhoV: number, rhoL: number, AhAa: number): number {
   const r = vo / Co
@@ -45,7 +45,7 @@ export function frothDensity(Ks: number): number {
  * Equation: h_L = phi_e [h_w + C (q_L/(L_w phi_e))^(2/3)], C = 0.5012 + 0.4389 exp(-137.8 h_w)  (SI, m)
  *   (published in cm: C_l = 50.12 + 43.89 exp(-1.378 h_w[cm]))
  * @param phiE froth density [-]; @param hw weir height [m]; @param qL liquid flow [m3/s]; @param Lw weir length [m]
- * Source: bennett1983 via benitez2009 ch. 4. Example: phi 0.5, hw 0.05, q 0.005, Lw 1 -> 0.03664 m
+ * Source: bennett1983 via benitez2009 ch. 4. Example: clearLiquidHeight(0.5, 0.05, 0.005, 1) = 0.03664 m
  */
 export function clearLiquidHeight(phiE: number, hw: number, qL: number, Lw: number): number {
   const C = 0.5012 + 0.4389 * Math.exp(-137.8 * hw)
@@ -54,7 +54,7 @@ export function clearLiquidHeight(phiE: number, hw: number, qL: number, Lw: numb
 
 /**
  * Residual (surface-tension) head. Equation: h_sigma = 6 sigma/(g rho_L d_o)
- * Source: benitez2009 ch. 4. Example: sigma 0.07, rhoL 995, do 4.5 mm -> 0.009565 m
+ * Source: benitez2009 ch. 4. Example: residualHead(0.07, 995, 0.0045) = 0.009565 m
  */
 export function residualHead(sigma: number, rhoL: number, dO: number): number {
   return (6 * sigma) / (G_ACC * rhoL * dO)
@@ -63,7 +63,7 @@ export function residualHead(sigma: number, rhoL: number, dO: number): number {
 /**
  * Weeping criterion (hole Froude number).
  * Equation: Fr_h = [rho_V v_o^2 / (rho_L g h_L)]^0.5; Fr_h >= 0.5: weeping not significant
- * Source: benitez2009 ch. 4 (Illus. 4.8). Example: rhoV 1.8, vo 12, rhoL 995, hL 0.03 -> 0.941
+ * Source: benitez2009 ch. 4 (Illus. 4.8). Example: holeFroudeNumber(1.8, 12, 995, 0.03) = 0.941
  */
 export function holeFroudeNumber(rhoV: number, vo: number, rhoL: number, hL: number): number {
   return Math.sqrt((rhoV * vo * vo) / (rhoL * G_ACC * hL))
@@ -88,7 +88,7 @@ export function entrainmentBenitez(hL: number, dO: number, phiE: number, Ks: num
 /**
  * Weir crest (Francis). Published: h_ow[mm] = 750 [L_w/(rho_L l_w)]^(2/3), L_w kg/s, l_w m.
  * SI: h_ow[m] = 0.75 (q_L/l_w)^(2/3), q_L in m3/s.
- * Source: sinnott2005 sec. 11.13. Example: 10 kg/s, 1000 kg/m3, 0.8 m -> 40.40 mm
+ * Source: sinnott2005 sec. 11.13. Example: weirCrestFrancis(0.01, 0.8) = 0.04040 m (10 kg/s of water at 1000 kg/m3)
  */
 export function weirCrestFrancis(qL: number, Lw: number): number {
   return 0.75 * Math.pow(qL / Lw, 2 / 3)
@@ -106,7 +106,7 @@ export function downcomerEntranceLoss(qL: number, Ada: number): number {
 
 /**
  * Segmental downcomer geometry: chord angle theta from A_d/A_t = (theta - sin theta)/(2 pi),
- * weir length L_w = D sin(theta/2). Source: benitez2009 ch. 4. Example: A_d/A_t = 0.1 -> L_w/D = 0.7266
+ * weir length L_w = D sin(theta/2). Source: benitez2009 ch. 4. Example: weirLengthRatio(0.1) = 0.7266
  */
 export function weirLengthRatio(AdAt: number): number {
   // Newton on f(theta) = theta - sin(theta) - 2 pi AdAt
@@ -132,7 +132,7 @@ export function weirLengthRatio(AdAt: number): number {
  * @param AoAn hole area / net area [-]; @param rhoV, rhoL densities [kg/m3]
  * @returns h_D [m of liquid]
  * Validity: d_o/l about 1-4 (Treybal ch. 6).
- * Source: treybal1980 ch. 6 (Illus. 6.3). Example: vo 15, do 4.5 mm, l 2 mm, AoAn 0.113, rhoV 2, rhoL 995 -> 0.0386 m
+ * Source: treybal1980 ch. 6 (Illus. 6.3). Example: dryTrayHeadTreybal(15, 0.0045, 0.002, 0.113, 2, 995) = 0.0387 m
  */
 export function dryTrayHeadTreybal(vo: number, dO: number, l: number, AoAn: number, rhoV: number, rhoL: number): number {
   const Co = 1.09 * Math.pow(dO / l, 0.25)

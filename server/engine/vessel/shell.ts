@@ -13,7 +13,7 @@ export const VESSEL_CAUTION =
  * @param S allowable stress [Pa]; @param E joint efficiency [-]; @param CA corrosion allowance [m]
  * @returns thickness [m]
  * Validity: t <= R/2 and P <= 0.385 S E.
- * Source: asmeVIII1 UG-27(c)(1). Example: P 1.5 MPa, D 600 mm, S 138 MPa, E 1, CA 3 mm -> 6.28 mm
+ * Source: asmeVIII1 UG-27(c)(1). Example: shellThicknessThinWall(1.5e6, 0.3, 138e6, 1, 0.003) = 0.00628 m
  */
 export function shellThicknessThinWall(P: number, R: number, S: number, E: number, CA: number): number {
   return (P * R) / (S * E - 0.6 * P) + CA
@@ -42,7 +42,7 @@ export function minimumThickness(rule: readonly MinThicknessRow[], D: number): n
  * Equation: m = rho t [pi D_m L + 2 (1.084 D_m^2)], D_m = D + t (mean diameter);
  *   1.084 D^2 is the surface area of a 2:1 elliptical head (from memory; common practice).
  * @param D inside diameter [m]; @param L tangent-to-tangent length [m]; @param t wall [m]; @param rho steel density [kg/m3]
- * Source: commonPractice. Example: D 1.2, L 12, t 0.006, rho 7850 -> 2,290 kg
+ * Source: commonPractice. Example: shellMass(1.2, 12, 0.006, 7850) = 2290 kg
  */
 export function shellMass(D: number, L: number, t: number, rho: number): number {
   const Dm = D + t

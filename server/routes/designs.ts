@@ -5,6 +5,7 @@ import * as svc from '../services/designs.ts'
 import { pricedDesignSchema, optimisationResultSchema } from '../../shared/schemas/results.ts'
 import { caseSchema } from '../../shared/schemas/case.ts'
 import { searchSpecSchema } from '../../shared/schemas/search.ts'
+import { ratingResultSchema } from '../../shared/schemas/rating.ts'
 
 const siteAndBasis = {
   siteId: z.number().int().positive().optional().meta({ description: "Use this site's components and the cost basis in force" }),
@@ -29,6 +30,13 @@ export function designRoutes(router: Router): Router {
       status: 200,
       doc: { body: evaluateRequest, response: z.union([pricedDesignSchema, z.array(pricedDesignSchema)]) },
       handler: (req) => svc.evaluate(req.user!, req.body),
+    },
+    {
+      method: 'post', path: '/designs/rate', access: { kind: 'signedIn' },
+      summary: 'Rate a standing column: { case, window?, siteId? }, a bare case or { cases: [...] } (stateless)',
+      status: 200,
+      doc: { response: z.union([ratingResultSchema, z.array(ratingResultSchema)]) },
+      handler: (req) => svc.rate(req.user!, req.body),
     },
     {
       method: 'post', path: '/designs/optimize', access: { kind: 'signedIn' },

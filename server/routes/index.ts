@@ -8,6 +8,7 @@ import { reportRoutes } from './reports.ts'
 import { reviewRoutes } from './review.ts'
 import { operatingRoutes } from './operating.ts'
 import { allocationRoutes } from './allocation.ts'
+import { standingRoutes } from './standing.ts'
 
 /** Feature routes beyond identity: designs, cost bases, studies, runs, review... */
 export function registerFeatureRoutes(router: Router, cfg: Config): void {
@@ -19,4 +20,5 @@ export function registerFeatureRoutes(router: Router, cfg: Config): void {
   reviewRoutes(router, cfg)
   operatingRoutes(router, cfg)
   allocationRoutes(router)
+  standingRoutes(router)
 }

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { ForbiddenError, ValidationError, zodDetails } from '../errors.ts'
-import { caseFromRequest, parseBasis, parseSearch, runDesign, runOptimiseAsync, assertFinite, libraryWith } from './engine-gateway.ts'
+import { caseFromRequest, parseBasis, parseSearch, runDesign, runOptimiseAsync, runRate, assertFinite, libraryWith } from './engine-gateway.ts'
+import { windowOptionsSchema } from '../../shared/schemas/rating.ts'
 import { siteLibrary } from './runs.ts'
 import { basisInForce } from './cost-bases.ts'
 import { loadPreset, hasPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
@@ -75,6 +76,26 @@ export async function evaluate(user: AuthUser, body: unknown) {
     out = runDesign(caseFromRequest(b.case, ctx.library, 'body.case'), basis, 'body.case')
   } else {
     out = runDesign(caseFromRequest(b, ctx.library, 'body'), basis, 'body')
+  }
+  assertFinite(out)
+  return out
+}
+
+/** Rate a standing column: { case, window?, siteId? }, a bare case or { cases: [...] }. */
+export async function rate(user: AuthUser, body: unknown) {
+  if (!body || typeof body !== 'object' || Array.isArray(body)) throw new ValidationError('The body must be a JSON object.', [{ path: 'body', message: 'must be an object' }])
+  const b = body as Record<string, unknown>
+  const env = parseOr400(envelope.pick({ siteId: true }).extend({ window: windowOptionsSchema.optional() }), { siteId: b.siteId, window: b.window }, 'body')
+  const ctx = await siteContext(user, env.siteId)
+  let out: unknown
+  if (Array.isArray(b.cases)) {
+    if (b.cases.length > MAX_BATCH) throw new ValidationError('Too many cases.', [{ path: 'body.cases', message: `at most ${MAX_BATCH} cases per request` }])
+    if (!b.cases.length) throw new ValidationError('The batch is empty.', [{ path: 'body.cases', message: 'give at least one case' }])
+    out = b.cases.map((c, i) => runRate(c, ctx.library, `body.cases.${i}`, env.window))
+  } else if ('case' in b) {
+    out = runRate(b.case, ctx.library, 'body.case', env.window)
+  } else {
+    out = runRate(b, ctx.library, 'body', env.window)
   }
   assertFinite(out)
   return out

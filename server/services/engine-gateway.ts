@@ -10,6 +10,9 @@ import { optimiseAsync } from './optimise-pool.ts'
 import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
 import type { DesignResult } from '../engine/contract.ts'
 import { ValidationError, InfeasibleError, AppError, zodDetails } from '../errors.ts'
+import { rateCaseToSI, rateSI } from '../engine/rating/rate.ts'
+import type { WindowOptions } from '../engine/rating/window.ts'
+import type { RatingResult } from '../../shared/schemas/rating.ts'
 import baseLibraryJson from '../../data/components.json' with { type: 'json' }
 
 /**
@@ -106,4 +109,13 @@ export function assertFinite(value: unknown, path = 'result'): void {
   if (typeof value === 'number' && !Number.isFinite(value)) throw new AppError(500, 'non_finite', `Non-finite number at ${path}`)
   if (Array.isArray(value)) value.forEach((v, i) => assertFinite(v, `${path}[${i}]`))
   else if (value && typeof value === 'object') for (const [k, v] of Object.entries(value)) assertFinite(v, `${path}.${k}`)
+}
+
+/** Rate one standing column (a rating case, see shared/schemas/rating.ts); engine errors become API errors. */
+export function runRate(raw: unknown, library: ComponentLibrary, prefix = 'body', window?: WindowOptions): RatingResult {
+  try {
+    return rateSI(rateCaseToSI(raw, library), { window })
+  } catch (e) {
+    return toApiError(e, prefix)
+  }
 }

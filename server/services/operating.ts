@@ -3,7 +3,7 @@ import { decodeText, readCsv, parseNumber, columnIndex, quote, sortIssues, fileE
 import type { CsvIssue } from '../../shared/schemas/uploads.ts'
 import { sequelize } from '../db/sequelize.ts'
 import { OperatingEntry, Study, Run } from '../db/models/index.ts'
-import { ConflictError, NotFoundError, ValidationError, InfeasibleError, zodDetails } from '../errors.ts'
+import { AppError, ConflictError, NotFoundError, ValidationError, InfeasibleError, zodDetails } from '../errors.ts'
 import { audit } from './audit.ts'
 import { basisInForce } from './cost-bases.ts'
 import { siteLibrary } from './runs.ts'
@@ -15,6 +15,7 @@ import { operatingEntryBody, type OperatingEntryBody } from '../../shared/schema
 import type { DesignSummary } from '../engine/contract.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { AuthUser } from '../types.d.ts'
+import { monitoringOf, type MonitoringView } from './monitoring.ts'
 
 function entryView(e: OperatingEntry) {
   return {
@@ -22,6 +23,7 @@ function entryView(e: OperatingEntry) {
     month: e.month.slice(0, 7),
     gasFlow: e.gasFlow,
     solventFlow: e.solventFlow,
+    inletMoleFraction: e.inletMoleFraction ?? null,
     outletMoleFraction: e.outletMoleFraction,
     recovery: e.recovery,
     powerKw: e.powerKw,
@@ -30,14 +32,14 @@ function entryView(e: OperatingEntry) {
   }
 }
 
-async function approvedStudy(siteId: number, studyId: number): Promise<Study> {
+export async function approvedStudy(siteId: number, studyId: number): Promise<Study> {
   const s = await Study.findOne({ where: { id: studyId, siteId } })
   if (!s) throw new NotFoundError('Study')
   return s
 }
 
 /** The approved design of a study: its recommended option's run (design or optimum). */
-async function approvedDesign(s: Study): Promise<{ summary: DesignSummary; run: Run }> {
+export async function approvedDesign(s: Study): Promise<{ summary: DesignSummary; run: Run }> {
   if (s.status !== 'approved' || !s.recommendedOptionId) {
     throw new InfeasibleError('Operating costs are tracked against an approved study.', [{ path: 'study.status', message: `is ${s.status}`, code: 'notApproved' }])
   }
@@ -53,10 +55,14 @@ export async function listEntries(siteId: number, studyId: number) {
   const entries = await OperatingEntry.findAll({ where: { studyId }, order: [['month', 'ASC']] })
   let months: MonthResult[] = []
   let design: { summary: DesignSummary; runId: number; costBasisVersion: number | null } | null = null
+  let monitoring: MonitoringView | null = null
+  let monitoringIssue: string | null = null
+  const pricedBases: CostBasisData[] = []
   if (s.status === 'approved' && entries.length) {
     const d = await approvedDesign(s)
     design = { summary: d.summary, runId: d.run.id, costBasisVersion: d.run.costBasisVersion }
-    const c = caseFromRequest(d.run.inputs, await siteLibrary(siteId), 'inputs')
+    const library = await siteLibrary(siteId)
+    const c = caseFromRequest(d.run.inputs, library, 'inputs')
     // Months under the same cost-basis version price the design the same way: cost it once per version.
     const designCosts = new Map<number, CostBreakdown>()
     months = []
@@ -71,17 +77,32 @@ export async function listEntries(siteId: number, studyId: number) {
         {
           design: d.summary,
           designCost,
-          inletMoleFraction: c.gas.soluteMoleFraction,
+          inletMoleFraction: e.inletMoleFraction ?? c.gas.soluteMoleFraction,
           soluteMolarMass: c.solute.molarMass * 1000,
           operatingHoursPerYear: basis.general.operatingHours,
           prices: { electricity: basis.utilities.electricityPrice, solvent: basis.utilities.solventCost, product: basis.utilities.productValue, emission: basis.utilities.emissionCharge },
         },
       )
       months.push({ ...m, month: m.month.slice(0, 7), costBasisVersion: b.version } as MonthResult & { costBasisVersion: number })
+      pricedBases.push(basis)
+    }
+    // The rating of the months never stops the log from answering: a failure is reported beside it.
+    try {
+      monitoring = await monitoringOf(
+        siteId,
+        d.run,
+        d.summary,
+        library,
+        entries.map((e) => ({ month: e.month.slice(0, 7), gasFlow: e.gasFlow, solventFlow: e.solventFlow, inletMoleFraction: e.inletMoleFraction ?? null })),
+        months.map((m, i) => ({ ...m, basis: pricedBases[i]! })),
+      )
+    } catch (e) {
+      if (!(e instanceof AppError)) throw e
+      monitoringIssue = e.message + (e.details.length ? `: ${e.details.map((x) => x.message).join('; ')}` : '')
     }
   }
   const toDate = months.reduce((a, m) => ({ actual: a.actual + m.actual.total, design: a.design + m.design.total, gap: a.gap + m.gap }), { actual: 0, design: 0, gap: 0 })
-  return { entries: entries.map(entryView), months, toDate, design }
+  return { entries: entries.map(entryView), months, toDate, design, monitoring, monitoringIssue }
 }
 
 function toRow(studyId: number, e: OperatingEntryBody, actor: AuthUser) {
@@ -90,6 +111,7 @@ function toRow(studyId: number, e: OperatingEntryBody, actor: AuthUser) {
     month: `${e.month}-01`,
     gasFlow: e.gasFlow,
     solventFlow: e.solventFlow,
+    inletMoleFraction: e.inletMoleFraction ?? null,
     outletMoleFraction: e.outletMoleFraction ?? null,
     recovery: e.recovery ?? null,
     powerKw: e.powerKw ?? null,
@@ -146,12 +168,12 @@ export async function deleteEntry(siteId: number, studyId: number, entryId: numb
   })
 }
 
-const CSV_COLUMNS = ['month', 'gasFlow', 'solventFlow', 'outletMoleFraction', 'recovery', 'powerKw', 'notes'] as const
+const CSV_COLUMNS = ['month', 'gasFlow', 'solventFlow', 'inletMoleFraction', 'outletMoleFraction', 'recovery', 'powerKw', 'notes'] as const
 type CsvColumn = (typeof CSV_COLUMNS)[number]
-const NUMERIC = new Set<CsvColumn>(['gasFlow', 'solventFlow', 'outletMoleFraction', 'recovery', 'powerKw'])
+const NUMERIC = new Set<CsvColumn>(['gasFlow', 'solventFlow', 'inletMoleFraction', 'outletMoleFraction', 'recovery', 'powerKw'])
 
 /**
- * Parse an operating-log CSV (header: month,gasFlow,solventFlow[,outletMoleFraction|recovery][,powerKw][,notes])
+ * Parse an operating-log CSV (header: month,gasFlow,solventFlow[,inletMoleFraction][,outletMoleFraction|recovery][,powerKw][,notes])
  * with the uploads' one reader and number rule; line-numbered problems.
  */
 export function parseOperatingCsv(text: string): { entries: OperatingEntryBody[]; errors: CsvIssue[] } {

@@ -8,6 +8,8 @@ export const operatingEntryBody = z
     month,
     gasFlow: z.number().positive('must be above zero').max(1e6),
     solventFlow: z.number().positive('must be above zero').max(1e7),
+    /** Inlet gas solute mole fraction of the month; absent: the approved design's. */
+    inletMoleFraction: z.number().gt(0).lt(1).nullable().optional(),
     outletMoleFraction: z.number().min(0).lt(1).nullable().optional(),
     recovery: z.number().gt(0).lt(1).nullable().optional(),
     powerKw: z.number().min(0).max(1e5).nullable().optional(),

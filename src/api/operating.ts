@@ -2,6 +2,7 @@
 import type { OperatingEntryBody } from '@shared/schemas/operating.ts'
 import { http } from './http.ts'
 import { postFile } from './uploads.ts'
+import type { Monitoring } from './rating.ts'
 
 export type OperatingEntryInput = OperatingEntryBody
 
@@ -10,6 +11,7 @@ export interface OperatingEntry {
   month: string
   gasFlow: number
   solventFlow: number
+  inletMoleFraction?: number | null
   outletMoleFraction: number | null
   recovery: number | null
   powerKw: number | null
@@ -51,6 +53,10 @@ export interface OperatingLog {
   months: MonthResult[]
   toDate: { actual: number; design: number; gap: number }
   design: { summary: Record<string, number>; runId: number; costBasisVersion: number | null } | null
+  /** Each month rated with the as-built column (null before the first month). */
+  monitoring?: Monitoring | null
+  /** Why the months could not be rated with the built column, when they could not. */
+  monitoringIssue?: string | null
 }
 
 const base = (siteId: number, studyId: number) => `/sites/${siteId}/studies/${studyId}/operating-entries`

@@ -36,7 +36,7 @@ const routes: NamedRoute[] = [
   { path: '/', name: 'home', redirect: () => ({ name: 'portfolio' }) },
   { path: '/portfolio', name: 'portfolio', component: () => import('@/views/PortfolioView.vue'), meta: { title: 'Portfolio' } },
   {
-    path: '/sites/:siteId(\\d+)/studies/:studyId(\\d+)/:section(streams|column|checks|economics|options|review|operating)?',
+    path: '/sites/:siteId(\\d+)/studies/:studyId(\\d+)/:section(streams|column|checks|economics|options|review|standing|operating)?',
     name: 'study',
     component: () => import('@/views/StudyWorkspaceView.vue'),
     meta: { title: 'Study' },

@@ -310,7 +310,7 @@ describe('operating log', () => {
     await p.getByTestId('op-imported').waitFor()
     const rows = p.getByTestId('op-table').locator('tbody tr')
     await expect(rows.count()).resolves.toBe(4)
-    await p.getByTestId('operating-log').locator('.apexcharts-svg').waitFor()
+    await p.getByTestId('operating-log').locator('.apexcharts-svg').first().waitFor()
     await expect(p.getByTestId('op-total-actual').innerText()).resolves.toMatch(/\d/)
     await shot(p, 'operating-log')
     // the bad file's import answered 400 on purpose; nothing else may have gone wrong

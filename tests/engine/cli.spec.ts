@@ -88,3 +88,30 @@ describe('design command line (in process)', () => {
     expect(main([], () => {}, () => {})).toBe(2)
   })
 })
+
+describe('rate command line', () => {
+  const rateCli = join(process.cwd(), 'server/cli/rate.ts')
+  it('prints the rating of data/examples/rate.json and exits 0', () => {
+    const r = spawnSync(process.execPath, [tsx, rateCli, 'data/examples/rate.json'], { encoding: 'utf8', timeout: 60000 })
+    expect(r.status).toBe(0)
+    const out = JSON.parse(r.stdout) as { summary: { recovery: number; percentFlood: number }; window: { inside: boolean } }
+    expect(out.summary.recovery).toBeGreaterThan(0.9)
+    expect(out.summary.percentFlood).toBeGreaterThan(80)
+  })
+  it('a batch gives an array; bad input exits 2 with the field path', async () => {
+    const { main: rateMain } = await import('../../server/cli/rate.ts')
+    const rating = JSON.parse(readFileSync('data/examples/rate.json', 'utf8')) as Record<string, unknown>
+    const f = join(dir, 'rate-batch.json')
+    writeFileSync(f, JSON.stringify({ cases: [rating, { ...rating, solventFlow: 400 }] }))
+    let stdout = ''
+    let stderr = ''
+    expect(rateMain([f], (s) => (stdout += s), (s) => (stderr += s))).toBe(0)
+    expect(JSON.parse(stdout)).toHaveLength(2)
+    const bad = join(dir, 'rate-bad.json')
+    writeFileSync(bad, JSON.stringify({ ...rating, column: { ...(rating.column as object), diameter: { value: 2, unit: 'kg' } } }))
+    stdout = ''
+    expect(rateMain([bad], (s) => (stdout += s), (s) => (stderr += s))).toBe(2)
+    expect(stderr).toContain('column.diameter')
+    expect(stdout).toBe('')
+  })
+})

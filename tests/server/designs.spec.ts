@@ -123,3 +123,46 @@ describe('GET /components', () => {
     for (const n of ['water', 'carbon dioxide', 'nitrogen', 'air', 'ethanol', 'methanol', 'acetone', 'ammonia', 'isopropanol']) expect(names).toContain(n)
   })
 })
+
+describe('POST /designs/rate', () => {
+  const rating = JSON.parse(readFileSync('data/examples/rate.json', 'utf8')) as Record<string, unknown>
+
+  it('rates a standing column: the fixed summary keys, checks and the window', async () => {
+    const r = await api().post('/api/v1/designs/rate').set(await auth()).send({ case: rating })
+    expect(r.status).toBe(200)
+    for (const k of [
+      'recovery', 'outletGasSoluteMoleFraction', 'richSolventSoluteMoleFraction', 'theoreticalStages', 'overallEfficiency',
+      'percentFlood', 'floodingGasFlow', 'weepingGasFlow', 'pressureDropPerTray', 'columnPressureDrop',
+    ]) expect(typeof r.body.summary[k], k).toBe('number')
+    expect(r.body.checks.map((c: { key: string }) => c.key)).toEqual(expect.arrayContaining(['flooding', 'weeping', 'entrainment', 'downcomerBackup']))
+    expect(r.body.window.boundaries).toHaveLength(4)
+    expect(r.body.window.current.gasFlow).toBeCloseTo(504, 6)
+  })
+
+  it('takes the same units as a design case (US customary in, SI kmol/h out)', async () => {
+    const us = { ...rating, solventFlow: { value: 340 / 0.45359237, unit: 'lbmol/h' }, column: { ...(rating.column as object), diameter: { value: 1.45 / 0.3048, unit: 'ft' } } }
+    const [a, b] = await Promise.all([
+      api().post('/api/v1/designs/rate').set(await auth()).send({ case: rating }),
+      api().post('/api/v1/designs/rate').set(await auth()).send({ case: us }),
+    ])
+    expect(b.status).toBe(200)
+    expect(b.body.summary.recovery).toBeCloseTo(a.body.summary.recovery, 9)
+    expect(b.body.operation.solventFlow).toBeCloseTo(340, 6)
+  })
+
+  it('a batch answers in order; a bad case is refused with its field path', async () => {
+    const more = { ...rating, solventFlow: 400 }
+    const ok = await api().post('/api/v1/designs/rate').set(await auth()).send({ cases: [rating, more] })
+    expect(ok.status).toBe(200)
+    expect(ok.body).toHaveLength(2)
+    expect(ok.body[1].summary.recovery).toBeGreaterThan(ok.body[0].summary.recovery)
+    const bad = await api().post('/api/v1/designs/rate').set(await auth()).send({ cases: [rating, { ...rating, column: { ...(rating.column as object), actualTrays: 0 } }] })
+    expect(bad.status).toBe(400)
+    expect(bad.body.error.details[0].path).toBe('body.cases.1.column.actualTrays')
+  })
+
+  it('needs a signed-in person', async () => {
+    const r = await api().post('/api/v1/designs/rate').send({ case: rating })
+    expect(r.status).toBe(401)
+  })
+})

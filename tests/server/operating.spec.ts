@@ -86,3 +86,48 @@ describe('operating log', () => {
     expect(rev.status).toBe(403)
   })
 })
+
+describe('operating log: the standing column watched month by month', () => {
+  it('rates each month with the as-built column, back-calculates the efficiency, warns of drift and splits the cost gap', async () => {
+    const { cobalt } = await siteIds()
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const { id, design } = await approvedStudy(cobalt)
+    const col = await api().get(`/api/v1/sites/${cobalt}/studies/${id}/standing-column`).set(eng)
+    expect(col.status).toBe(200)
+    expect(col.body.rating.window.inside).toBe(true)
+    expect(col.body.ratingCase.column.actualTrays).toBeGreaterThan(1)
+    const expected = col.body.rating.summary.recovery as number
+    const months = [
+      { month: '2026-01', gasFlow: design.gasFlow, solventFlow: design.solventFlow, recovery: expected },
+      { month: '2026-02', gasFlow: design.gasFlow, solventFlow: design.solventFlow * 1.3, recovery: 0.95, inletMoleFraction: 0.014 },
+      { month: '2026-03', gasFlow: design.gasFlow, solventFlow: design.solventFlow, recovery: 0.95 },
+      { month: '2026-04', gasFlow: design.gasFlow * 1.6, solventFlow: design.solventFlow * 1.6, recovery: 0.95 },
+    ]
+    let r
+    for (const m of months) r = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries`).set(eng).send(m)
+    expect(r!.status).toBe(201)
+    const mon = r!.body.monitoring
+    expect(mon.months).toHaveLength(4)
+    expect(mon.months[0].achievedEfficiency).toBeCloseTo(mon.designPoint.overallEfficiency, 5)
+    expect(mon.months[1].inletMoleFraction).toBe(0.014)
+    expect(r!.body.entries[1].inletMoleFraction).toBe(0.014)
+    expect(mon.drift.warning).toBe(true)
+    expect(mon.drift.since).toBe('2026-02')
+    expect(mon.months[3].insideWindow).toBe(false)
+    for (const m of mon.months) {
+      const g = m.costGap
+      expect(g.prices + g.throughput + g.excessSolvent + g.efficiencyLoss + g.other).toBeCloseTo(g.gap, 6)
+    }
+    expect(mon.months[1].costGap.excessSolvent).toBeGreaterThan(0)
+    expect(mon.months[2].costGap.efficiencyLoss).toBeGreaterThan(0)
+    expect(mon.window.boundaries).toHaveLength(4)
+  })
+
+  it('the standing column needs an approved study', async () => {
+    const { cobalt } = await siteIds()
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const s = await api().post(`/api/v1/sites/${cobalt}/studies`).set(eng).send({ name: 'Draft column', inputs: ethanolCase })
+    const r = await api().get(`/api/v1/sites/${cobalt}/studies/${s.body.id}/standing-column`).set(eng)
+    expect(r.status).toBe(422)
+  })
+})

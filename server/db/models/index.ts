@@ -335,6 +335,7 @@ export class OperatingEntry extends Model<InferAttributes<OperatingEntry>, Infer
   declare month: string
   declare gasFlow: number
   declare solventFlow: number
+  declare inletMoleFraction: CreationOptional<number | null>
   declare outletMoleFraction: number | null
   declare recovery: number | null
   declare powerKw: number | null
@@ -350,6 +351,7 @@ OperatingEntry.init(
     month: { type: DataTypes.DATEONLY, allowNull: false },
     gasFlow: { type: DataTypes.DOUBLE, allowNull: false },
     solventFlow: { type: DataTypes.DOUBLE, allowNull: false },
+    inletMoleFraction: { type: DataTypes.DOUBLE, allowNull: true },
     outletMoleFraction: { type: DataTypes.DOUBLE, allowNull: true },
     recovery: { type: DataTypes.DOUBLE, allowNull: true },
     powerKw: { type: DataTypes.DOUBLE, allowNull: true },

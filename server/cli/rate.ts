@@ -13,7 +13,7 @@ import { reportCliError } from './errors.ts'
 import { ENGINE_VERSION } from '../engine/index.ts'
 import { isRateBatch, rateBatch, rateCase } from '../engine/rating/index.ts'
 import type { RatingResult } from '../../shared/schemas/rating.ts'
-import { readCaseFile } from './design.ts'
+import { readCaseFile } from './input.ts'
 
 export type RateOutput = RatingResult | RatingResult[]
 

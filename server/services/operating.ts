@@ -163,6 +163,10 @@ export function parseOperatingCsv(text: string): { entries: OperatingEntryBody[]
   parsed.data.forEach((row, i) => {
     const line = i + 2
     const obj: Record<string, unknown> = {}
+    if ('__parsed_extra' in row) {
+      errors.push({ path: `file:line ${line}`, message: `has more values than the header has columns (${fields.length})` })
+      return
+    }
     for (const [k, raw] of Object.entries(row)) {
       const v = (raw ?? '').trim()
       if (!CSV_COLUMNS.includes(k as (typeof CSV_COLUMNS)[number]) || v === '') continue
@@ -184,7 +188,7 @@ export function parseOperatingCsv(text: string): { entries: OperatingEntryBody[]
     seen.add(r.data.month)
     entries.push(r.data)
   })
-  for (const e of parsed.errors) errors.push({ path: `file:line ${(e.row ?? 0) + 2}`, message: e.message })
+  for (const e of parsed.errors) if (e.code !== 'TooManyFields') errors.push({ path: `file:line ${(e.row ?? 0) + 2}`, message: e.message })
   return { entries, errors }
 }
 

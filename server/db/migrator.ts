@@ -1,9 +1,13 @@
 import { Umzug, SequelizeStorage } from 'umzug'
 import type { Sequelize } from 'sequelize'
 import * as m0001 from './migrations/0001-initial-schema.ts'
+import * as m0002 from './migrations/0002-shared-throttle-and-mail-lease.ts'
 
 /** Migrations are listed here in order; each exports up/down taking the QueryInterface. */
-const MIGRATIONS = [{ name: '0001-initial-schema', module: m0001 }]
+const MIGRATIONS = [
+  { name: '0001-initial-schema', module: m0001 },
+  { name: '0002-shared-throttle-and-mail-lease', module: m0002 },
+]
 
 export function createMigrator(sequelize: Sequelize) {
   const qi = sequelize.getQueryInterface()

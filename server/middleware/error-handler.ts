@@ -53,6 +53,7 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
   let body: ErrorBody['error'] = { code: 'internal', message: 'Something went wrong on our side.', details: [], requestId: req.requestId }
   if (err instanceof AppError) {
     status = err.status
+    if (status === 503) res.set('Retry-After', String(DB_RETRY_AFTER_SECONDS))
     body = { code: err.code, message: err.message, details: err.details, requestId: req.requestId }
   } else if (err instanceof ZodError) {
     status = 400
@@ -93,7 +94,8 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
     status = err.status
     body = { code: 'bad_request', message: 'The request is not valid.', details: [], requestId: req.requestId }
   }
-  if (status >= 500) logger.error({ err, requestId: req.requestId, path: req.path }, 'request failed')
+  if (status === 503) logger.warn({ requestId: req.requestId, path: req.path }, 'database unavailable')
+  else if (status >= 500) logger.error({ err, requestId: req.requestId, path: req.path }, 'request failed')
   if (res.headersSent) return
   res.status(status).json({ error: body })
 }

@@ -7,6 +7,7 @@ import { loginBody, createUserBody, createSiteBody, setMembershipBody, updateMeB
 import { idParam, pagingQuery } from '../../shared/schemas/common.ts'
 import type { Config } from '../config.ts'
 import { isHttps } from '../middleware/transport-security.ts'
+import { databaseReady } from '../services/readiness.ts'
 
 export function identityRoutes(router: Router, cfg: Config): Router {
   const limits = { perAccount: cfg.LOGIN_ACCOUNT_LIMIT, perAddress: cfg.LOGIN_RATE_LIMIT }
@@ -15,6 +16,17 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     {
       method: 'get', path: '/health', access: { kind: 'public' }, summary: 'Liveness and version',
       handler: () => ({ status: 'ok', service: 'scrubwright' }),
+    },
+    {
+      method: 'get', path: '/health/live', access: { kind: 'public' }, summary: 'Liveness: the process answers (no database check)',
+      handler: () => ({ status: 'ok', service: 'scrubwright' }),
+    },
+    {
+      method: 'get', path: '/health/ready', access: { kind: 'public' }, summary: 'Readiness: 200 when the database answers, else 503 with Retry-After',
+      handler: async (_req, res) => {
+        await databaseReady()
+        res.status(200).json({ status: 'ready', database: 'ok' })
+      },
     },
     {
       method: 'post', path: '/auth/login', access: { kind: 'public' }, summary: 'Sign in with e-mail and password',

@@ -30,6 +30,8 @@ const envSchema = z.object({
   SMTP_PASSWORD: z.string().optional(),
   SMTP_SECURE: z.enum(['true', 'false']).default('false'),
   MAIL_FROM: z.string().default('Scrubwright <scrubwright@localhost>'),
+  /** How often a sending replica looks for queued mail, ms. */
+  MAIL_POLL_MS: z.coerce.number().int().min(50).default(15000),
   PUBLIC_URL: z.string().optional(),
   UPLOAD_LIMIT_BYTES: z.coerce.number().int().min(1024).default(1024 * 1024),
 })

@@ -1,3 +1,4 @@
+import { QueryTypes } from 'sequelize'
 import { sequelize } from '../db/sequelize.ts'
 import { AppError } from '../errors.ts'
 import { DB_RETRY_AFTER_SECONDS } from '../middleware/error-handler.ts'
@@ -14,7 +15,7 @@ export async function databaseReady(timeoutMs = 2000): Promise<void> {
   let timer: NodeJS.Timeout | undefined
   try {
     await Promise.race([
-      sequelize.query('SELECT 1'),
+      sequelize.query('SELECT 1 AS ok', { type: QueryTypes.SELECT }),
       new Promise((_, reject) => {
         timer = setTimeout(() => reject(new Error('timeout')), timeoutMs)
       }),

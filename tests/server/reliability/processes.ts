@@ -69,7 +69,7 @@ export class PrivateMariaDb {
   /** Run SQL as root over the socket. */
   sql(statements: string, database?: string): string {
     const args = ['--no-defaults', '-uroot', `--socket=${this.socket}`, '-N', '-B', ...(database ? [database] : []), '-e', statements]
-    return execFileSync(which(['mariadb', 'mysql']), args, { encoding: 'utf8' })
+    return execFileSync(which(['mariadb', 'mysql']), args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'] })
   }
 
   async start(): Promise<void> {

@@ -15,7 +15,7 @@ const out = mkdtempSync(path.join(tmpdir(), 'sw-backup-'))
 beforeAll(async () => {
   await db.init()
   migrateAndSeed(db.url)
-}, 180_000)
+}, 300_000)
 
 afterAll(async () => {
   await db.stop()

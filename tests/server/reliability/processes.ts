@@ -81,7 +81,7 @@ export class PrivateMariaDb {
     await waitFor('MariaDB to answer', async () => {
       this.sql('SELECT 1')
       return true
-    }, 60_000)
+    }, 120_000)
   }
 
   /** Kill the server outright (no clean shutdown), as a crash or a lost host would. */
@@ -140,7 +140,7 @@ export class ServerProcess {
     }
     this.child.stdout?.on('data', keep)
     this.child.stderr?.on('data', keep)
-    await waitFor(`server on ${this.port}`, async () => (await fetch(`${this.url}/api/v1/health/live`)).ok, 90_000)
+    await waitFor(`server on ${this.port}`, async () => (await fetch(`${this.url}/api/v1/health/live`)).ok, 240_000)
   }
 
   async stop(): Promise<void> {

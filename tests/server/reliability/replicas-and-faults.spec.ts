@@ -66,7 +66,7 @@ beforeAll(async () => {
   a = new ServerProcess(HTTP_PORT, env)
   b = new ServerProcess(HTTP_PORT + 1, env)
   await Promise.all([a.start(), b.start()])
-}, 240_000)
+}, 480_000)
 
 afterAll(async () => {
   await Promise.all([a?.stop(), b?.stop()])

@@ -25,7 +25,13 @@ function which(names: string[]): string {
 export async function waitFor(what: string, check: () => Promise<boolean>, timeoutMs = 60_000): Promise<void> {
   const end = Date.now() + timeoutMs
   for (;;) {
-    if (await check().catch(() => false)) return
+    let ok = false
+    try {
+      ok = await check()
+    } catch (e) {
+      if ((e as Error).message === 'exited') throw new Error(`the process exited while waiting for ${what}`)
+    }
+    if (ok) return
     if (Date.now() > end) throw new Error(`timed out waiting for ${what}`)
     await new Promise((r) => setTimeout(r, 200))
   }
@@ -140,7 +146,15 @@ export class ServerProcess {
     }
     this.child.stdout?.on('data', keep)
     this.child.stderr?.on('data', keep)
-    await waitFor(`server on ${this.port}`, async () => (await fetch(`${this.url}/api/v1/health/live`)).ok, 240_000)
+    const child = this.child
+    try {
+      await waitFor(`server on ${this.port}`, async () => {
+        if (child.exitCode !== null || child.signalCode !== null) throw new Error('exited')
+        return (await fetch(`${this.url}/api/v1/health/live`)).ok
+      }, 240_000)
+    } catch (e) {
+      throw new Error(`${(e as Error).message}; server output:\n${this.log.slice(-2000)}`)
+    }
   }
 
   async stop(): Promise<void> {

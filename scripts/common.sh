@@ -49,7 +49,7 @@ provision_local_database() {
   if [ -z "${DATABASE_URL:-}" ]; then
     mariadb_ensure_installed
     echo "[scrubwright] starting private MariaDB on 127.0.0.1:$DB_PORT (data in $DATA_DIR/mariadb)"
-    mariadb_start "$DATA_DIR/mariadb" "$DB_PORT"; STARTED_DB=1
+    STARTED_DB=1; mariadb_start "$DATA_DIR/mariadb" "$DB_PORT"
     [ -f "$DATA_DIR/db-password" ] || random_secret > "$DATA_DIR/db-password"
     local pass; pass="$(cat "$DATA_DIR/db-password")"
     mariadb_create_db "$DATA_DIR/mariadb" scrubwright scrubwright "$pass"

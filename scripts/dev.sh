@@ -22,6 +22,8 @@ trap cleanup INT TERM EXIT
 provision_local_database
 npx tsx server/db/cli.ts migrate
 npx tsx server/db/cli.ts seed
+# Pages come from Vite's port in development: let its origin send cookie-authenticated writes.
+export TRUSTED_ORIGINS="${TRUSTED_ORIGINS:-http://127.0.0.1:${VITE_PORT:-5173},http://localhost:${VITE_PORT:-5173}}"
 node_modules/.bin/tsx watch server/index.ts &
 API_PID=$!
 node_modules/.bin/vite --host 127.0.0.1 --port "${VITE_PORT:-5173}" &

@@ -18,23 +18,31 @@ mkdir -p "$DATA_DIR"
 
 ensure_node_modules
 
-SERVER_PID=""; STARTED_DB=0
+SERVER_PID=""; STEP_PID=""; STARTED_DB=0
+# Stops whatever runs (a start-up step or the server) and the database, then exits: on Ctrl-C or
+# TERM at any moment, start-up included, nothing carries on afterwards.
 cleanup() {
+  local rc=$?
   trap - INT TERM EXIT
-  if [ -n "$SERVER_PID" ] && kill -0 "$SERVER_PID" 2>/dev/null; then
-    kill -TERM "$SERVER_PID" 2>/dev/null || true; wait "$SERVER_PID" 2>/dev/null || true
-  fi
+  for pid in $STEP_PID $SERVER_PID; do
+    if kill -0 "$pid" 2>/dev/null; then kill -TERM "$pid" 2>/dev/null || true; wait "$pid" 2>/dev/null || true; fi
+  done
   if [ "$STARTED_DB" = 1 ]; then echo "[scrubwright] stopping MariaDB"; mariadb_stop "$DATA_DIR/mariadb"; fi
+  exit "$rc"
 }
-trap cleanup INT TERM EXIT
+trap 'cleanup' EXIT
+trap 'exit 130' INT
+trap 'exit 143' TERM
+# Each start-up step runs in the background and is waited for, so a signal is handled at once.
+step() { "$@" & STEP_PID=$!; wait "$STEP_PID"; STEP_PID=""; }
 
 provision_local_database
 export MAIL_MODE="${MAIL_MODE:-fake}"
 
-npx tsx server/db/cli.ts migrate
-npx tsx server/db/cli.ts seed
+step npx tsx server/db/cli.ts migrate
+step npx tsx server/db/cli.ts seed
 echo "[scrubwright] building the client"
-npx vite build --logLevel warn
+step npx vite build --logLevel warn
 
 require_free_port "$PORT" PORT
 node_modules/.bin/tsx server/index.ts &

@@ -5,7 +5,8 @@ import { pinoHttp } from 'pino-http'
 import path from 'node:path'
 import fs from 'node:fs'
 import { fileURLToPath } from 'node:url'
-import { config as defaultConfig, type Config } from './config.ts'
+import { config as defaultConfig, trustProxyValue, type Config } from './config.ts'
+import { hsts, noStore } from './middleware/transport-security.ts'
 import { logger } from './logger.ts'
 import { requestId } from './middleware/request-id.ts'
 import { errorHandler, notFound } from './middleware/error-handler.ts'
@@ -23,8 +24,11 @@ export function createApp(overrides: Partial<Config> = {}): Express {
   associate()
   const app = express()
   app.disable('x-powered-by')
-  app.set('trust proxy', 'loopback')
+  app.locals.cfg = cfg
+  // Forwarded headers are believed only from the proxies TRUST_PROXY names (none by default).
+  app.set('trust proxy', trustProxyValue(cfg.TRUST_PROXY))
   app.use(requestId)
+  app.use('/api', noStore)
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -39,9 +43,11 @@ export function createApp(overrides: Partial<Config> = {}): Express {
           'upgrade-insecure-requests': null,
         },
       },
-      strictTransportSecurity: cfg.NODE_ENV === 'production',
+      // Sent by hsts() below whenever the app is served over https, whatever NODE_ENV says.
+      strictTransportSecurity: false,
     }),
   )
+  app.use(hsts(cfg))
   app.use(pinoHttp({ logger, genReqId: (req) => (req as express.Request).id, autoLogging: { ignore: (req) => req.url === '/api/v1/health' } }))
   app.use(express.json({ limit: '512kb' }))
   app.use(cookieParser())

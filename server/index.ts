@@ -16,7 +16,7 @@ if (config.MAIL_MODE === 'fake') {
     logger.warn({ err }, 'fake SMTP server could not start; mail stays queued and is retried')
   }
 }
-startMailLoop()
+startMailLoop(config.MAIL_POLL_MS)
 void kick().catch(() => undefined)
 
 warmOptimisePool()

@@ -1,11 +1,13 @@
 import { Umzug, SequelizeStorage } from 'umzug'
 import type { Sequelize } from 'sequelize'
 import * as m0001 from './migrations/0001-initial-schema.ts'
+import * as m0002 from './migrations/0002-shared-throttle-and-mail-lease.ts'
 import * as m0003 from './migrations/0003-operating-inlet.ts'
 
 /** Migrations are listed here in order; each exports up/down taking the QueryInterface. */
 const MIGRATIONS = [
   { name: '0001-initial-schema', module: m0001 },
+  { name: '0002-shared-throttle-and-mail-lease', module: m0002 },
   { name: '0003-operating-inlet', module: m0003 },
 ]
 

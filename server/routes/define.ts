@@ -3,6 +3,8 @@ import type { ZodType } from 'zod'
 import { authenticate } from '../services/auth.ts'
 import { ForbiddenError, UnauthenticatedError, ValidationError, zodDetails } from '../errors.ts'
 import type { Role } from '../../shared/schemas/common.ts'
+import type { Config } from '../config.ts'
+import { assertSameOriginWrite } from '../middleware/transport-security.ts'
 
 /**
  * What a route needs. Every route under /api/v1 declares one of these; the guard enforces it.
@@ -46,18 +48,21 @@ export const routeTable: RouteSpec[] = []
 
 export const SESSION_COOKIE = 'sw_session'
 
-function tokenOf(req: Request): string | undefined {
+function tokenOf(req: Request): { token: string; fromCookie: boolean } | undefined {
   const h = req.get('authorization')
-  if (h?.startsWith('Bearer ')) return h.slice(7).trim()
+  if (h?.startsWith('Bearer ')) return { token: h.slice(7).trim(), fromCookie: false }
   const c = (req.cookies as Record<string, string> | undefined)?.[SESSION_COOKIE]
-  return c || undefined
+  return c ? { token: c, fromCookie: true } : undefined
 }
 
 function guard(access: Access): RequestHandler {
   return async (req, _res, next) => {
     if (access.kind === 'public') return next()
-    const token = tokenOf(req)
-    if (!token) throw new UnauthenticatedError()
+    const t = tokenOf(req)
+    if (!t) throw new UnauthenticatedError()
+    // A browser sends the cookie with cross-site requests too: such writes must come from our own pages.
+    if (t.fromCookie) assertSameOriginWrite(req, (req.app.locals as { cfg: Config }).cfg)
+    const token = t.token
     req.user = await authenticate(token)
     if (access.kind === 'signedIn') return next()
     if (access.kind === 'systemAdmin') {

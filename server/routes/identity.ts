@@ -1,24 +1,17 @@
 import type { Router } from 'express'
-import { rateLimit } from 'express-rate-limit'
 import { defineRoutes, parse, ANY_ROLE, SESSION_COOKIE, type RouteSpec } from './define.ts'
 import { signIn, signOut, userView } from '../services/auth.ts'
 import * as people from '../services/people.ts'
 import { listAudit } from '../services/audit.ts'
 import { loginBody, createUserBody, createSiteBody, setMembershipBody, updateMeBody } from '../../shared/schemas/identity.ts'
 import { idParam, pagingQuery } from '../../shared/schemas/common.ts'
-import { TooManyRequestsError } from '../errors.ts'
 import type { Config } from '../config.ts'
 import { openApiDocument } from '../openapi.ts'
+import { isHttps } from '../middleware/transport-security.ts'
+import { databaseReady } from '../services/readiness.ts'
 
 export function identityRoutes(router: Router, cfg: Config): Router {
-  const loginLimiter = rateLimit({
-    windowMs: 15 * 60_000,
-    limit: cfg.LOGIN_RATE_LIMIT,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next) => next(new TooManyRequestsError('Too many sign-in attempts; wait a few minutes and try again.')),
-  })
-  const secure = cfg.NODE_ENV === 'production'
+  const limits = { perAccount: cfg.LOGIN_ACCOUNT_LIMIT, perAddress: cfg.LOGIN_RATE_LIMIT }
 
   const specs: RouteSpec[] = [
     {
@@ -30,15 +23,25 @@ export function identityRoutes(router: Router, cfg: Config): Router {
       handler: () => openApiDocument(),
     },
     {
+      method: 'get', path: '/health/live', access: { kind: 'public' }, summary: 'Liveness: the process answers (no database check)',
+      handler: () => ({ status: 'ok', service: 'scrubwright' }),
+    },
+    {
+      method: 'get', path: '/health/ready', access: { kind: 'public' }, summary: 'Readiness: 200 when the database answers, else 503 with Retry-After',
+      handler: async (_req, res) => {
+        await databaseReady()
+        res.status(200).json({ status: 'ready', database: 'ok' })
+      },
+    },
+    {
       method: 'post', path: '/auth/login', access: { kind: 'public' }, summary: 'Sign in with e-mail and password',
-      before: [loginLimiter],
       status: 200,
       doc: { body: loginBody },
       handler: async (req, res) => {
         const body = parse(loginBody, req.body)
-        const session = await signIn(body.email, body.password, req.requestId)
+        const session = await signIn(body.email, body.password, req.requestId, { address: req.ip ?? req.socket.remoteAddress ?? 'unknown', limits })
         res.cookie(SESSION_COOKIE, session.token, {
-          httpOnly: true, sameSite: 'strict', secure, path: '/api', expires: new Date(session.expiresAt),
+          httpOnly: true, sameSite: 'strict', secure: isHttps(req, cfg), path: '/api', expires: new Date(session.expiresAt),
         })
         res.status(200).json(session)
       },

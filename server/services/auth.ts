@@ -7,6 +7,7 @@ import type { AuthUser } from '../types.d.ts'
 import type { UserView, SessionView } from '../../shared/schemas/identity.ts'
 import type { Role } from '../../shared/schemas/common.ts'
 import { audit } from './audit.ts'
+import { assertNotThrottled, recordFailure, clearAccount, type ThrottleLimits } from './sign-in-throttle.ts'
 
 interface TokenClaims {
   sub: string
@@ -16,10 +17,15 @@ interface TokenClaims {
 // A hash to compare against when the e-mail is unknown, so timing does not reveal who exists.
 const DUMMY_HASH = bcrypt.hashSync('not-a-real-password', 10)
 
-export async function signIn(email: string, password: string, requestId: string): Promise<SessionView> {
+export async function signIn(email: string, password: string, requestId: string, client?: { address: string; limits: ThrottleLimits }): Promise<SessionView> {
+  if (client) await assertNotThrottled(email, client.address, client.limits)
   const user = await User.findOne({ where: { email } })
   const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH)
-  if (!user || !ok) throw new UnauthenticatedError('E-mail or password is not right.')
+  if (!user || !ok) {
+    if (client) await recordFailure(email, client.address)
+    throw new UnauthenticatedError('E-mail or password is not right.')
+  }
+  if (client) await clearAccount(email)
   user.lastSeenAt = new Date()
   await user.save()
   await audit({ userId: user.id, siteId: null, action: 'sign_in', entity: 'user', entityId: user.id, requestId })

@@ -104,11 +104,34 @@ export async function runOptimiseAsync(c: CaseSI, basis: CostBasisData, search: 
   }
 }
 
-/** Guard the JSON we return: the engine promises finite numbers; check it at the edge too. */
+/**
+ * Guard the JSON we return: the engine promises finite numbers; check it at the edge too. Inputs so
+ * large that a result overflows (a gas flow of 1e9 kmol/h) are refused as an infeasible design (422)
+ * naming the first number that overflowed, never stored and never sent as null.
+ */
 export function assertFinite(value: unknown, path = 'result'): void {
-  if (typeof value === 'number' && !Number.isFinite(value)) throw new AppError(500, 'non_finite', `Non-finite number at ${path}`)
-  if (Array.isArray(value)) value.forEach((v, i) => assertFinite(v, `${path}[${i}]`))
-  else if (value && typeof value === 'object') for (const [k, v] of Object.entries(value)) assertFinite(v, `${path}.${k}`)
+  const bad = firstNonFinite(value, path)
+  if (bad !== null) {
+    throw new InfeasibleError('The inputs are too large or too small to compute: a result overflows.', [
+      { path: bad, message: 'does not come out as a finite number; bring the inputs into a plant-sized range', code: 'nonFinite' },
+    ])
+  }
+}
+
+function firstNonFinite(value: unknown, path: string): string | null {
+  if (typeof value === 'number') return Number.isFinite(value) ? null : path
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      const b = firstNonFinite(value[i], `${path}.${i}`)
+      if (b !== null) return b
+    }
+  } else if (value && typeof value === 'object') {
+    for (const [k, v] of Object.entries(value)) {
+      const b = firstNonFinite(v, `${path}.${k}`)
+      if (b !== null) return b
+    }
+  }
+  return null
 }
 
 /** Rate one standing column (a rating case, see shared/schemas/rating.ts); engine errors become API errors. */

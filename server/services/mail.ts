@@ -1,5 +1,6 @@
 import nodemailer, { type Transporter } from 'nodemailer'
-import { Op, type Transaction } from 'sequelize'
+import { QueryTypes, type Transaction } from 'sequelize'
+import { sequelize } from '../db/sequelize.ts'
 import { config } from '../config.ts'
 import { logger } from '../logger.ts'
 import { MailMessage } from '../db/models/index.ts'
@@ -39,19 +40,28 @@ export interface Mail {
   body: string
 }
 
+/**
+ * Queue messages in the action's own transaction. Every replica queues, whatever its MAIL_MODE:
+ * a replica with mail 'off' only does not send; the sending replica(s) deliver the queue.
+ */
 export async function enqueue(mails: Mail[], transaction?: Transaction): Promise<void> {
-  if (config.MAIL_MODE === 'off' || !mails.length) return
+  if (!mails.length) return
   await MailMessage.bulkCreate(
     mails.map((m) => ({ toAddress: m.to, subject: m.subject.slice(0, 250), body: m.body, lastError: null, sentAt: null })),
     { transaction },
   )
 }
 
+/** How long a sender holds the messages it took; after that (a sender that died) another may take them. */
+export const LEASE_MS = 60_000
+const BATCH = 20
+
 let queue: Promise<void> = Promise.resolve()
 
 /**
- * Deliver what is due; safe to call often. Passes run one after another, so the promise a
- * caller gets settles after a pass that started after the call (and saw its messages).
+ * Deliver what is due; safe to call often and from any number of processes. Passes run one after
+ * another, so the promise a caller gets settles after a pass that started after the call (and saw
+ * its messages).
  */
 export function kick(): Promise<void> {
   if (config.MAIL_MODE === 'off') return Promise.resolve()
@@ -59,19 +69,45 @@ export function kick(): Promise<void> {
   return queue
 }
 
+/**
+ * Take up to BATCH due messages for this sender: rows another sender holds are skipped
+ * (SELECT ... FOR UPDATE SKIP LOCKED) and the ones taken get a lease in the same transaction, so
+ * each message is delivered by exactly one sender. Back-off: attempt n waits 2^n * 5 s.
+ */
+async function claimDue(): Promise<MailMessage[]> {
+  return sequelize.transaction(async (transaction) => {
+    const now = new Date()
+    const rows = await sequelize.query<{ id: number }>(
+      `SELECT id FROM mail_messages
+        WHERE status = 'pending' AND attempts < :max
+          AND (claimed_until IS NULL OR claimed_until < :now)
+          AND (attempts = 0 OR updated_at <= :now - INTERVAL (POW(2, attempts) * 5) SECOND)
+        ORDER BY id LIMIT ${BATCH}
+        FOR UPDATE SKIP LOCKED`,
+      { replacements: { max: MAX_ATTEMPTS, now }, type: QueryTypes.SELECT, transaction },
+    )
+    const ids = rows.map((r) => r.id)
+    if (!ids.length) return []
+    await MailMessage.update({ claimedUntil: new Date(now.getTime() + LEASE_MS) }, { where: { id: ids }, transaction, silent: true })
+    return MailMessage.findAll({ where: { id: ids }, order: [['id', 'ASC']], transaction })
+  })
+}
+
 async function deliverDue(): Promise<void> {
-  const due = await MailMessage.findAll({ where: { status: 'pending', attempts: { [Op.lt]: MAX_ATTEMPTS } }, order: [['id', 'ASC']], limit: 50 })
-  for (const m of due) {
-    // Back-off: attempt n waits 2^n * 5 s after the last try.
-    if (m.attempts > 0 && Date.now() - m.updatedAt.getTime() < 2 ** m.attempts * 5000) continue
-    try {
-      await transport().sendMail({ from: config.MAIL_FROM, to: m.toAddress, subject: m.subject, text: m.body })
-      await m.update({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null })
-    } catch (err) {
-      const attempts = m.attempts + 1
-      logger.warn({ err, mailId: m.id, attempts }, 'mail delivery failed')
-      await m.update({ attempts, lastError: err instanceof Error ? err.message : String(err), status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending' })
+  for (;;) {
+    const taken = await claimDue()
+    if (!taken.length) return
+    for (const m of taken) {
+      try {
+        await transport().sendMail({ from: config.MAIL_FROM, to: m.toAddress, subject: m.subject, text: m.body })
+        await m.update({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null, claimedUntil: null })
+      } catch (err) {
+        const attempts = m.attempts + 1
+        logger.warn({ err, mailId: m.id, attempts }, 'mail delivery failed')
+        await m.update({ attempts, lastError: err instanceof Error ? err.message : String(err), status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending', claimedUntil: null })
+      }
     }
+    if (taken.length < BATCH) return
   }
 }
 

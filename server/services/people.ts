@@ -56,6 +56,13 @@ export async function setMembership(siteId: number, userId: number, role: Role, 
     const user = await User.findByPk(userId, { transaction })
     if (!site) throw new NotFoundError('Site')
     if (!user) throw new NotFoundError('Person')
+    // A site administrator works with the people of their own sites only: anyone else is answered
+    // exactly like an unknown id, so names and e-mail addresses are not learned by trying ids.
+    if (!actor.isAdmin) {
+      const adminSites = [...actor.roles].filter(([, r]) => r === 'admin').map(([id]) => id)
+      const shared = await Membership.count({ where: { userId, siteId: adminSites }, transaction })
+      if (shared === 0) throw new NotFoundError('Person')
+    }
     const existing = await Membership.findOne({ where: { siteId, userId }, transaction, lock: transaction.LOCK.UPDATE })
     const before = existing ? { role: existing.role } : null
     if (existing) {

@@ -110,8 +110,8 @@ export async function getStudy(siteId: number, studyId: number, user: AuthUser) 
   // Remember that this person looked (for "changed since you last looked").
   const seen = await StudyView.findOne({ where: { userId: user.id, studyId } })
   const lastSeenAt = seen?.seenAt ?? null
-  if (seen) await seen.update({ seenAt: new Date() })
-  else await StudyView.create({ userId: user.id, studyId, seenAt: new Date() })
+  // One statement that inserts or updates: opens of the same study at the same moment cannot clash.
+  await StudyView.upsert({ userId: user.id, studyId, seenAt: new Date() })
   return {
     ...row(s as Study & { owner: User }),
     inputs: s.inputs,

@@ -10,8 +10,8 @@ export const allocationBody = z
       .array(
         z.object({
           studyId: z.number().int().positive(),
-          minFlow: z.number().min(0).optional(),
-          maxFlow: z.number().positive().optional(),
+          minFlow: z.number().min(0).max(1e5, 'must be at most 100,000 m³/h').optional(),
+          maxFlow: z.number().positive('must be above zero').max(1e5, 'must be at most 100,000 m³/h').optional(),
         }),
       )
       .min(1, 'choose at least one absorber')

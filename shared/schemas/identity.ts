@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { roleSchema, shortText, UNIT_SYSTEMS } from './common.ts'
+import { passwordSchema, refinePassword } from './password.ts'
 
 export const loginBody = z.object({
   email: z.string().trim().toLowerCase().email('must be an e-mail address').max(254),
@@ -41,17 +42,16 @@ export const siteViewSchema = z.object({
 })
 export type SiteView = z.infer<typeof siteViewSchema>
 
-export const passwordSchema = z
-  .string()
-  .min(10, 'must be at least 10 characters')
-  .max(200, 'must be at most 200 characters')
+export { passwordSchema, passwordProblem, refinePassword } from './password.ts'
 
-export const createUserBody = z.object({
-  email: z.string().trim().toLowerCase().email('must be an e-mail address').max(254),
-  name: shortText(120),
-  password: passwordSchema,
-  isAdmin: z.boolean().default(false),
-})
+export const createUserBody = z
+  .object({
+    email: z.string().trim().toLowerCase().email('must be an e-mail address').max(254),
+    name: shortText(120),
+    password: passwordSchema,
+    isAdmin: z.boolean().default(false),
+  })
+  .superRefine(refinePassword())
 export type CreateUserBody = z.infer<typeof createUserBody>
 
 export const updateMeBody = z.object({

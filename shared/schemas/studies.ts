@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { shortText, studyStatusSchema, STUDY_STATUSES } from './common.ts'
 import { caseSchema } from './case.ts'
+import { searchSpecSchema } from './search.ts'
 
 export const STUDY_SORTS = ['name', 'status', 'updatedAt', 'lastRunAt', 'optimumTac', 'targetRecovery'] as const
 
@@ -24,14 +25,15 @@ export const createStudyBody = z.object({
   name: shortText(160),
   description: z.string().max(5000).default(''),
   inputs: caseSchema,
-  search: z.record(z.string(), z.unknown()).optional(),
+  /** Optimiser settings, checked with the optimiser's own schema. */
+  search: searchSpecSchema.optional(),
 })
 
 export const updateStudyBody = z.object({
   name: shortText(160).optional(),
   description: z.string().max(5000).optional(),
   inputs: caseSchema.optional(),
-  search: z.record(z.string(), z.unknown()).nullable().optional(),
+  search: searchSpecSchema.nullable().optional(),
   lockVersion: z.number().int().min(0),
 })
 

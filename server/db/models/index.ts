@@ -395,6 +395,8 @@ export class MailMessage extends Model<InferAttributes<MailMessage>, InferCreati
   declare attempts: CreationOptional<number>
   declare lastError: string | null
   declare sentAt: Date | null
+  /** A sender's lease: until then no other sender takes the message. */
+  declare claimedUntil: CreationOptional<Date | null>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 }
@@ -408,7 +410,25 @@ MailMessage.init(
     attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     lastError: { type: DataTypes.TEXT, allowNull: true },
     sentAt: { type: DataTypes.DATE, allowNull: true },
+    claimedUntil: { type: DataTypes.DATE(3), allowNull: true },
     ...ts,
   },
   { sequelize, tableName: 'mail_messages' },
+)
+
+/** A failed sign-in, per account (e-mail as typed) and per client address: the shared throttle. */
+export class SignInFailure extends Model<InferAttributes<SignInFailure>, InferCreationAttributes<SignInFailure>> {
+  declare id: CreationOptional<number>
+  declare scope: 'account' | 'address'
+  declare subject: string
+  declare failedAt: Date
+}
+SignInFailure.init(
+  {
+    id: { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true },
+    scope: { type: DataTypes.ENUM('account', 'address'), allowNull: false },
+    subject: { type: DataTypes.STRING(254), allowNull: false },
+    failedAt: { type: DataTypes.DATE(3), allowNull: false },
+  },
+  { sequelize, tableName: 'sign_in_failures', timestamps: false },
 )

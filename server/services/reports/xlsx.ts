@@ -13,6 +13,24 @@ function sheet(wb: ExcelJS.Workbook, name: string, columns: { header: string; ke
   return ws
 }
 
+/**
+ * Text that a spreadsheet would read as a formula (starting with =, +, -, @, tab or CR) gets a
+ * leading apostrophe, so a study name like "=HYPERLINK(...)" shows as text and never runs.
+ */
+export function escapeCellText(text: string): string {
+  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text
+}
+
+function neutraliseFormulas(wb: ExcelJS.Workbook): void {
+  wb.eachSheet((ws) => {
+    ws.eachRow({ includeEmpty: false }, (row) => {
+      row.eachCell({ includeEmpty: false }, (cell) => {
+        if (typeof cell.value === 'string') cell.value = escapeCellText(cell.value)
+      })
+    })
+  })
+}
+
 export async function renderXlsx(m: ReportModel): Promise<Buffer> {
   const wb = new ExcelJS.Workbook()
   wb.creator = 'Scrubwright'
@@ -80,6 +98,7 @@ export async function renderXlsx(m: ReportModel): Promise<Buffer> {
     })
   }
 
+  neutraliseFormulas(wb)
   const out = await wb.xlsx.writeBuffer()
   return Buffer.from(out as ArrayBuffer)
 }

@@ -2,7 +2,7 @@ import pluginVue from 'eslint-plugin-vue'
 import { defineConfigWithVueTs, vueTsConfigs } from '@vue/eslint-config-typescript'
 
 export default defineConfigWithVueTs(
-  { ignores: ['dist/**', 'node_modules/**', 'screenshots/**', '.data/**', 'coverage/**'] },
+  { ignores: ['dist/**', 'dist-server/**', 'dist-server.*/**', '.tmp/**', 'node_modules/**', 'screenshots/**', '.data/**', 'coverage/**'] },
   pluginVue.configs['flat/essential'],
   vueTsConfigs.recommended,
   {

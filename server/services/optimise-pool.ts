@@ -45,9 +45,13 @@ function rebuild(e: WorkerError): Error {
 }
 
 function spawn(): Slot {
-  const worker = new Worker(new URL('../workers/bootstrap.mjs', import.meta.url), {
-    workerData: { entry: new URL('../workers/optimise-worker.ts', import.meta.url).href },
-  })
+  // Compiled (dist-server/): the worker is a sibling module. From source (tsx): through the loader.
+  const compiled = !import.meta.url.endsWith('.ts')
+  const worker = compiled
+    ? new Worker(new URL('./optimise-worker.mjs', import.meta.url))
+    : new Worker(new URL('../workers/bootstrap.mjs', import.meta.url), {
+        workerData: { entry: new URL('../workers/optimise-worker.ts', import.meta.url).href },
+      })
   const slot: Slot = { worker, busy: 0 }
   worker.unref()
   worker.on('message', (m: { id: number; ok: boolean; result?: OptimiseResult; error?: WorkerError }) => {

@@ -1,7 +1,7 @@
 import type { Router, Request } from 'express'
 import { z } from 'zod'
 import { defineRoutes, parse } from './define.ts'
-import { ForbiddenError, ValidationError } from '../errors.ts'
+import { AppError, ForbiddenError, ValidationError } from '../errors.ts'
 import { parseCase, parseBasis, parseSearch, runDesign, runOptimiseAsync, assertFinite, libraryWith } from '../services/engine-gateway.ts'
 import { siteLibrary } from '../services/runs.ts'
 import { basisInForce } from '../services/cost-bases.ts'
@@ -23,6 +23,18 @@ async function siteContext(req: Request, siteId: number | undefined): Promise<{ 
   if (!req.user!.isAdmin && !req.user!.roles.has(siteId)) throw new ForbiddenError('You are not a member of this site.')
   const row = await basisInForce(siteId)
   return { library: await siteLibrary(siteId), basis: row ? (row.data as CostBasisData) : null }
+}
+
+/** The slot of one batch case: its design, or { error: { code, message, issues: [{ path, message }] } }. */
+function designSlot(run: () => unknown): unknown {
+  try {
+    const r = run()
+    assertFinite(r)
+    return r
+  } catch (e) {
+    if (!(e instanceof AppError) || e.status >= 500) throw e
+    return { error: { code: e.code, message: e.message, issues: e.details.map((d) => ({ path: d.path, message: d.message })) } }
+  }
 }
 
 function resolveBasis(ref: unknown, fallback: CostBasisData | null, path: string): CostBasisData | null {
@@ -66,7 +78,10 @@ export function designRoutes(router: Router): Router {
         let out: unknown
         if (Array.isArray(body.cases)) {
           if (body.cases.length > MAX_BATCH) throw new ValidationError('Too many cases.', [{ path: 'body.cases', message: `at most ${MAX_BATCH} cases per request` }])
-          out = body.cases.map((c, i) => runDesign(parseCase(c, ctx.library, `body.cases.${i}`), basis, `body.cases.${i}`))
+          // Each case its own slot: the design, or why it was refused; one refused case never stops the others.
+          const slots = body.cases.map((c, i) => designSlot(() => runDesign(parseCase(c, ctx.library, `body.cases.${i}`), basis, `body.cases.${i}`)))
+          res.setHeader('X-Cases-Refused', String(slots.filter((x) => typeof x === 'object' && x !== null && 'error' in x).length))
+          out = slots
         } else if ('case' in body) {
           out = runDesign(parseCase(body.case, ctx.library, 'body.case'), basis, 'body.case')
         } else {

@@ -73,7 +73,7 @@ describe('design command line: batches that keep going', { timeout: 120000 }, ()
   it('a large file is read as a stream, with a cost basis written after the cases', () => {
     const f = join(dir, 'stream.json')
     const cases = Array.from({ length: 30 }, (_, i) => ({ ...good, name: `case "${i}" {[`, recovery: 0.9 + i * 0.002 }))
-    cases[7] = badUnit as typeof cases[number]
+    cases[7] = badUnit as unknown as typeof cases[number]
     writeFileSync(f, JSON.stringify({ cases, costBasis: { preset: 'halvard-cobalt-ridge' } }, null, 1))
     const whole = run([f, '--summary'])
     const streamed = run([f, '--summary'], { SCRUBWRIGHT_STREAM_BYTES: '0' })

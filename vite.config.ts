@@ -1,12 +1,34 @@
 import { fileURLToPath, URL } from 'node:url'
-import { defineConfig } from 'vite'
+import { brotliCompressSync, gzipSync, constants as zlib } from 'node:zlib'
+import { defineConfig, type Plugin } from 'vite'
 import vue from '@vitejs/plugin-vue'
 import vuetify, { transformAssetUrls } from 'vite-plugin-vuetify'
+
+/**
+ * Precompressed copies of every text file of the build (name.br at brotli quality 11, name.gz at
+ * gzip level 9), served by server/middleware/static-client.ts with the matching Content-Encoding.
+ */
+function precompress(): Plugin {
+  return {
+    name: 'scrubwright-precompress',
+    apply: 'build',
+    generateBundle(_options, bundle) {
+      for (const file of Object.values(bundle)) {
+        if (!/\.(js|css|html|svg|json|txt|map)$/.test(file.fileName) || file.fileName.endsWith('.map')) continue
+        const data = Buffer.from(file.type === 'chunk' ? file.code : typeof file.source === 'string' ? file.source : Buffer.from(file.source))
+        if (data.length < 1024) continue
+        const br = brotliCompressSync(data, { params: { [zlib.BROTLI_PARAM_QUALITY]: 11, [zlib.BROTLI_PARAM_SIZE_HINT]: data.length } })
+        this.emitFile({ type: 'asset', fileName: file.fileName + '.br', source: br })
+        this.emitFile({ type: 'asset', fileName: file.fileName + '.gz', source: gzipSync(data, { level: 9 }) })
+      }
+    },
+  }
+}
 
 const apiPort = process.env.PORT ?? '8640'
 
 export default defineConfig({
-  plugins: [vue({ template: { transformAssetUrls } }), vuetify({ autoImport: true })],
+  plugins: [vue({ template: { transformAssetUrls } }), vuetify({ autoImport: true }), precompress()],
   resolve: {
     alias: {
       '@': fileURLToPath(new URL('./src', import.meta.url)),

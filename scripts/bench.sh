@@ -26,7 +26,7 @@ if [ "${BENCH_API:-1}" = 1 ] && { mariadb_bin >/dev/null || [ "$(id -u)" = 0 ]; 
   SERVER_PID=$!
   wait_for_http "http://127.0.0.1:$PORT_B/api/v1/health" 60 || { cat "$TMP/server.log"; exit 1; }
   kill -0 "$SERVER_PID" 2>/dev/null || { echo "bench server did not start (port $PORT_B in use?)" >&2; cat "$TMP/server.log"; exit 1; }
-  export BENCH_API_URL="http://127.0.0.1:$PORT_B"
+  export BENCH_API_URL="http://127.0.0.1:$PORT_B" BENCH_SERVER_PID="$SERVER_PID"
   BENCH_TOKEN="$(node -e "fetch(process.argv[1]+'/api/v1/auth/login',{method:'POST',headers:{'content-type':'application/json'},body:JSON.stringify({email:'engineer@halvard.example',password:'scrubwright-demo'})}).then(r=>r.json()).then(b=>process.stdout.write(b.token))" "$BENCH_API_URL")"
   export BENCH_TOKEN
 fi

@@ -68,7 +68,10 @@ function batchRow(rows: Row[]): void {
     let buf = ''
     for (let i = 0; i < n; i++) {
       buf += JSON.stringify({ ...base, recovery: 0.9 + (i % 90) / 1000, solventFactor: 1.2 + (i % 50) / 100 }) + '\n'
-      if (buf.length > 1 << 20) (writeSync(fd, buf), (buf = ''))
+      if (buf.length > 1 << 20) {
+        writeSync(fd, buf)
+        buf = ''
+      }
     }
     writeSync(fd, buf)
     closeSync(fd)

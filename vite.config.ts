@@ -1,5 +1,7 @@
 import { fileURLToPath, URL } from 'node:url'
 import { brotliCompressSync, gzipSync, constants as zlib } from 'node:zlib'
+import { readFileSync, writeFileSync } from 'node:fs'
+import { join } from 'node:path'
 import { defineConfig, type Plugin } from 'vite'
 import vue from '@vitejs/plugin-vue'
 import vuetify, { transformAssetUrls } from 'vite-plugin-vuetify'
@@ -12,14 +14,15 @@ function precompress(): Plugin {
   return {
     name: 'scrubwright-precompress',
     apply: 'build',
-    generateBundle(_options, bundle) {
-      for (const file of Object.values(bundle)) {
-        if (!/\.(js|css|html|svg|json|txt|map)$/.test(file.fileName) || file.fileName.endsWith('.map')) continue
-        const data = Buffer.from(file.type === 'chunk' ? file.code : typeof file.source === 'string' ? file.source : Buffer.from(file.source))
+    // after the files are written: the code is final then (module preload markers replaced)
+    writeBundle(options, bundle) {
+      const dir = options.dir ?? 'dist'
+      for (const fileName of Object.keys(bundle)) {
+        if (!/\.(js|css|html|svg|json|txt)$/.test(fileName)) continue
+        const data = readFileSync(join(dir, fileName))
         if (data.length < 1024) continue
-        const br = brotliCompressSync(data, { params: { [zlib.BROTLI_PARAM_QUALITY]: 11, [zlib.BROTLI_PARAM_SIZE_HINT]: data.length } })
-        this.emitFile({ type: 'asset', fileName: file.fileName + '.br', source: br })
-        this.emitFile({ type: 'asset', fileName: file.fileName + '.gz', source: gzipSync(data, { level: 9 }) })
+        writeFileSync(join(dir, fileName + '.br'), brotliCompressSync(data, { params: { [zlib.BROTLI_PARAM_QUALITY]: 11, [zlib.BROTLI_PARAM_SIZE_HINT]: data.length } }))
+        writeFileSync(join(dir, fileName + '.gz'), gzipSync(data, { level: 9 }))
       }
     },
   }

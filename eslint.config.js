@@ -7,7 +7,7 @@ import { createTypeScriptImportResolver } from 'eslint-import-resolver-typescrip
 const NODE_IO = ['node:*', 'fs', 'fs/*', 'path', 'os', 'net', 'http', 'https', 'child_process', 'worker_threads', 'stream', 'crypto']
 
 export default defineConfigWithVueTs(
-  { ignores: ['dist/**', 'dist-server/**', 'node_modules/**', 'screenshots/**', '.data/**', 'coverage/**'] },
+  { ignores: ['dist/**', 'dist-server/**', 'dist-server.*/**', '.tmp/**', 'node_modules/**', 'screenshots/**', '.data/**', 'coverage/**'] },
   pluginVue.configs['flat/essential'],
   vueTsConfigs.recommended,
   {

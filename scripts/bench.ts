@@ -46,14 +46,19 @@ async function benchApi(url: string, token: string): Promise<Record<string, numb
   return out
 }
 
+console.log(`Scrubwright speed table (${new Date().toISOString()}, load average ${(await import('node:os')).loadavg().map((x) => x.toFixed(2)).join(' ')})`)
+const { benchTable, printTable } = await import('./bench-table.ts')
+const rows = await benchTable()
+printTable(rows)
+
 const figures: Record<string, number> = {}
-if (!process.env.BENCH_SKIP_ENGINE) {
+if (process.env.BENCH_DETAIL && !process.env.BENCH_SKIP_ENGINE) {
   Object.assign(figures, await benchDesign({ log: true }))
   Object.assign(figures, await benchOptimise({ log: true }))
 }
-if (process.env.BENCH_API_URL && process.env.BENCH_TOKEN) {
+if (process.env.BENCH_DETAIL && process.env.BENCH_API_URL && process.env.BENCH_TOKEN) {
   console.log('\nAPI under 20 concurrent optimise requests for 10 s ...')
   Object.assign(figures, await benchApi(process.env.BENCH_API_URL, process.env.BENCH_TOKEN))
 }
-console.log('\nSummary')
+if (Object.keys(figures).length) console.log('\nDetail')
 for (const [k, v] of Object.entries(figures)) console.log(`  ${k.padEnd(52)} ${Number.isInteger(v) ? v : v.toFixed(2)}`)

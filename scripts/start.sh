@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # One command from a fresh clone to a running Scrubwright with demo data:
 # installs npm packages, provisions a private MariaDB on 127.0.0.1 (unless DATABASE_URL is set),
-# migrates, seeds the demo scenario once, builds the client and serves API + client.
+# migrates, seeds the demo scenario once, builds the client and serves API + client. The server
+# runs as compiled JavaScript (dist-server/, rebuilt when a source is newer than the build).
 # Ctrl-C stops the server and the database cleanly.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -39,21 +40,22 @@ step() { "$@" & STEP_PID=$!; wait "$STEP_PID"; STEP_PID=""; }
 provision_local_database
 export MAIL_MODE="${MAIL_MODE:-fake}"
 
-step npx tsx server/db/cli.ts migrate
-step npx tsx server/db/cli.ts seed
+echo "[scrubwright] compiling the server (when its sources changed)"
+step node scripts/run-built.mjs db-cli migrate
+step node scripts/run-built.mjs db-cli seed
 echo "[scrubwright] building the client"
 step npx vite build --logLevel warn
 
 require_free_port "$PORT" PORT
-node_modules/.bin/tsx server/index.ts &
+node scripts/run-built.mjs index &
 SERVER_PID=$!
 wait_for_http "http://$HOST:$PORT/api/v1/health" 60 || { echo "[scrubwright] server did not start" >&2; exit 1; }
 cat <<TXT
 
   Scrubwright is running at http://$HOST:$PORT
 
-  Demo sign-ins (password for all: $(npx tsx server/db/cli.ts demo-password)):
-$(npx tsx server/db/cli.ts demo-users)
+  Demo sign-ins (password for all: $(node dist-server/db-cli.mjs demo-password)):
+$(node dist-server/db-cli.mjs demo-users)
 
   Press Ctrl-C to stop the server and the database.
 TXT

@@ -9,6 +9,7 @@ import { config as defaultConfig, trustProxyValue, type Config } from './config.
 import { hsts, noStore } from './middleware/transport-security.ts'
 import { logger } from './logger.ts'
 import { requestId } from './middleware/request-id.ts'
+import { staticClient, clientFallback } from './middleware/static-client.ts'
 import { errorHandler, notFound } from './middleware/error-handler.ts'
 import { newRouter } from './routes/define.ts'
 import { identityRoutes } from './routes/identity.ts'
@@ -61,8 +62,8 @@ export function createApp(overrides: Partial<Config> = {}): Express {
 
   const dist = path.join(root, 'dist')
   if (fs.existsSync(path.join(dist, 'index.html'))) {
-    app.use(express.static(dist, { index: false, maxAge: '1h' }))
-    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(dist, 'index.html')))
+    app.use(...staticClient(dist))
+    app.get('/{*splat}', clientFallback(dist))
   }
   app.use(notFound)
   app.use(errorHandler)

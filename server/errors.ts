@@ -44,6 +44,16 @@ export class ConflictError extends AppError {
     super(409, 'conflict', message, details)
   }
 }
+/** The server is busy (a full queue): 503 with Retry-After [s]; nothing was done. */
+export class ServiceBusyError extends AppError {
+  constructor(
+    message: string,
+    readonly retryAfterSeconds: number,
+  ) {
+    super(503, 'busy', message)
+  }
+}
+
 export class InfeasibleError extends AppError {
   constructor(message: string, details: ErrorDetail[] = []) {
     super(422, 'infeasible_design', message, details)

@@ -1,9 +1,10 @@
 /**
- * Units for Scrubwright: one small mathjs instance (unit functions only, so the
- * client bundle stays small), a few custom units, and the table of quantity kinds
- * with their SI unit, case-file unit and US-customary display unit.
+ * Units for Scrubwright: a table of the units people use for each quantity kind (exact
+ * published factors), the table of quantity kinds with their SI unit, case-file unit and
+ * US-customary display unit, and, for any other unit, mathjs, loaded only when a case needs
+ * it (see units-mathjs.ts): most cases never pay for loading a general units library.
  *
- * Imports only mathjs (and nothing from the server), so the client can use it.
+ * Imports nothing (neither the server nor mathjs), so the client can use it.
  *
  * Conventions
  * - Temperatures are absolute temperatures (degC, degF, K, degR), never differences.
@@ -15,26 +16,150 @@
  * - Published exact factors (NIST SP 811): 1 ft = 0.3048 m, 1 lb = 0.45359237 kg,
  *   1 psi = 6894.757 Pa (6894.757293168...), degF = degC * 9/5 + 32.
  */
-import { create, createUnitDependencies, unitDependencies, type FactoryFunctionMap, type Unit } from 'mathjs'
-
-const math = create({ unitDependencies, createUnitDependencies } as FactoryFunctionMap)
-
 /** Standard atmosphere [Pa], exact. */
 export const STANDARD_ATMOSPHERE = 101325
 
-// Custom units. mathjs already has mol with SI prefixes (kmol), h, degC, degF, psi, bar,
-// atm, mmHg, dyn, lbm, gal, ft, in.
-math.createUnit(
-  {
-    lbmol: { definition: '453.59237 mol', aliases: ['lbmole', 'lb-mol'] },
-    cP: { definition: '0.001 Pa s', aliases: ['centipoise'] },
-    gpm: { definition: '1 gal/min' },
-    cfm: { definition: '1 ft^3/min' },
-    // conventional inch of water: 25.4 mm x 1000 kg/m3 x 9.80665 m/s2
-    inH2O: { definition: '249.08891 Pa', aliases: ['inchH2O'] },
-  },
-  { override: false },
-)
+/** An affine map to the SI unit of a group: si = value * scale + offset. */
+export interface Affine {
+  scale: number
+  offset: number
+}
+
+// Exact factors (NIST SP 811, 2008, appendix B): ft 0.3048 m; in 0.0254 m; lb 0.45359237 kg;
+// US gallon 231 in^3 = 3.785411784e-3 m^3; psi = lbf/in^2 with g_n = 9.80665 m/s^2;
+// standard atmosphere 101 325 Pa; torr = atm/760; conventional mmHg 133.322387415 Pa;
+// conventional inch of water 25.4 mm x 1000 kg/m^3 x g_n; degF = K x 9/5 - 459.67.
+const FT = 0.3048
+const IN = 0.0254
+const LB = 0.45359237
+const GAL = 231 * IN ** 3
+const PSI = (LB * 9.80665) / IN ** 2
+const H = 3600
+
+/** Units by SI unit: a number is a scale, a pair is [scale, offset]. */
+const UNIT_TABLE: Record<string, Record<string, number | [number, number]>> = {
+  'mol/s': { 'mol/s': 1, 'mol/h': 1 / H, 'mol/min': 1 / 60, 'kmol/s': 1000, 'kmol/min': 1000 / 60, 'kmol/h': 1000 / H, 'lbmol/s': LB * 1000, 'lbmol/min': (LB * 1000) / 60, 'lbmol/h': (LB * 1000) / H },
+  'kg/s': { 'kg/s': 1, 'kg/min': 1 / 60, 'kg/h': 1 / H, 'g/s': 1e-3, 't/h': 1000 / H, 'lbm/s': LB, 'lbm/min': LB / 60, 'lbm/h': LB / H, 'lb/h': LB / H, 'lb/s': LB },
+  'm^3/s': { 'm^3/s': 1, 'm^3/min': 1 / 60, 'm^3/h': 1 / H, 'L/s': 1e-3, 'L/min': 1e-3 / 60, 'L/h': 1e-3 / H, 'ft^3/s': FT ** 3, 'ft^3/min': FT ** 3 / 60, 'ft^3/h': FT ** 3 / H, cfm: FT ** 3 / 60, gpm: GAL / 60, 'gal/min': GAL / 60, 'gal/h': GAL / H },
+  K: { K: 1, degC: [1, 273.15], degF: [5 / 9, 459.67 * (5 / 9)], degR: 5 / 9 },
+  Pa: { Pa: 1, hPa: 100, kPa: 1000, MPa: 1e6, GPa: 1e9, bar: 1e5, mbar: 100, atm: STANDARD_ATMOSPHERE, psi: PSI, torr: STANDARD_ATMOSPHERE / 760, mmHg: 133.322387415, inH2O: 25.4e-3 * 1000 * 9.80665, 'N/m^2': 1, 'N/mm^2': 1e6 },
+  m: { m: 1, mm: 1e-3, cm: 1e-2, km: 1000, ft: FT, in: IN, inch: IN },
+  'm^2': { 'm^2': 1, 'cm^2': 1e-4, 'mm^2': 1e-6, 'ft^2': FT ** 2, 'in^2': IN ** 2 },
+  'm/s': { 'm/s': 1, 'cm/s': 1e-2, 'm/min': 1 / 60, 'm/h': 1 / H, 'km/h': 1000 / H, 'ft/s': FT, 'ft/min': FT / 60, 'ft/h': FT / H },
+  'kg/m^3': { 'kg/m^3': 1, 'g/cm^3': 1000, 'g/L': 1, 'kg/L': 1000, 'lbm/ft^3': LB / FT ** 3, 'lb/ft^3': LB / FT ** 3, 'lbm/gal': LB / GAL },
+  'Pa s': { 'Pa s': 1, 'Pa*s': 1, 'mPa s': 1e-3, 'mPa*s': 1e-3, cP: 1e-3, centipoise: 1e-3, 'lbm/(ft s)': LB / FT },
+  'N/m': { 'N/m': 1, 'mN/m': 1e-3, 'dyn/cm': 1e-3 },
+  'kg/mol': { 'kg/mol': 1, 'kg/kmol': 1e-3, 'g/mol': 1e-3, 'lbm/lbmol': 1e-3, 'lb/lbmol': 1e-3 },
+  kg: { kg: 1, g: 1e-3, t: 1000, tonne: 1000, lbm: LB, lb: LB },
+  s: { s: 1, min: 60, h: H, day: 86400 },
+  'mol/(m^3 Pa)': { 'mol/(m^3 Pa)': 1 },
+}
+
+/** The table itself, for the tests that check it against published factors and mathjs. */
+export const UNIT_TABLE_FOR_TESTS: Readonly<typeof UNIT_TABLE> = UNIT_TABLE
+
+/** SI unit of each unit in the table (first group wins). */
+const GROUP_OF = new Map<string, string>()
+for (const [si, units] of Object.entries(UNIT_TABLE)) for (const u of Object.keys(units)) if (!GROUP_OF.has(u)) GROUP_OF.set(u, si)
+
+/**
+ * A general units parser for units outside the table: the affine map of `unit` to `si`, or
+ * 'unknown' / 'incompatible'. Installed by units-mathjs.ts (in the browser) or loaded on first
+ * need in Node.
+ */
+export interface UnitFallback {
+  affine(unit: string, si: string): Affine | 'unknown' | 'incompatible'
+}
+
+let fallback: UnitFallback | null | undefined
+
+/** Install the parser used for units outside the table (null: table only). */
+export function setUnitFallback(f: UnitFallback | null): void {
+  fallback = f
+  affineCache.clear()
+}
+
+type NodeProcess = { getBuiltinModule?: (id: string) => unknown }
+type NodeRequire = ((id: string) => unknown) & { resolve: (id: string) => string }
+type ModuleBuiltin = { createRequire: (from: string) => NodeRequire }
+
+/** mathjs's unit parts only (its CommonJS files, about a tenth of the package); the whole package if its layout differs. */
+function requireMathjsUnits(req: NodeRequire): MathjsModule {
+  try {
+    const dir = req.resolve('mathjs').replace(/[\\/]index\.js$/, '')
+    const { create } = req(`${dir}/core/create.js`) as Pick<MathjsModule, 'create'>
+    const { unitDependencies } = req(`${dir}/entry/dependenciesAny/dependenciesUnitFunction.generated.js`) as Pick<MathjsModule, 'unitDependencies'>
+    const { createUnitDependencies } = req(`${dir}/entry/dependenciesAny/dependenciesCreateUnit.generated.js`) as Pick<MathjsModule, 'createUnitDependencies'>
+    return { create, unitDependencies, createUnitDependencies }
+  } catch {
+    return req('mathjs') as MathjsModule
+  }
+}
+
+/** In Node, mathjs is required the first time a unit outside the table appears. */
+function getFallback(): UnitFallback | null {
+  if (fallback !== undefined) return fallback
+  fallback = null
+  const proc = (globalThis as { process?: NodeProcess }).process
+  const mod = proc?.getBuiltinModule?.('node:module') as ModuleBuiltin | undefined
+  if (mod) {
+    fallback = mathjsFallback(requireMathjsUnits(mod.createRequire(import.meta.url)))
+  }
+  return fallback
+}
+
+interface MathUnit {
+  equalBase(other: MathUnit): boolean
+  toNumber(unit: string): number
+}
+/** The parts of mathjs the fallback uses. */
+export interface MathjsModule {
+  create(factories: never): {
+    createUnit(defs: Record<string, { definition: string; aliases?: string[] }>, opts: { override: boolean }): unknown
+    unit(value: number, unit: string): MathUnit
+  }
+  unitDependencies: unknown
+  createUnitDependencies: unknown
+}
+
+/** A fallback built on one small mathjs instance (unit functions only) with our few extra units. */
+export function mathjsFallback(m: MathjsModule): UnitFallback {
+  const math = m.create({ unitDependencies: m.unitDependencies, createUnitDependencies: m.createUnitDependencies } as never)
+  math.createUnit(
+    {
+      lbmol: { definition: '453.59237 mol', aliases: ['lbmole', 'lb-mol'] },
+      cP: { definition: '0.001 Pa s', aliases: ['centipoise'] },
+      gpm: { definition: '1 gal/min' },
+      cfm: { definition: '1 ft^3/min' },
+      inH2O: { definition: '249.08891 Pa', aliases: ['inchH2O'] },
+    },
+    { override: false },
+  )
+  return {
+    affine(unit, si) {
+      let u: MathUnit
+      try {
+        u = math.unit(1, unit)
+      } catch {
+        return 'unknown'
+      }
+      if (!u.equalBase(math.unit(1, si))) return 'incompatible'
+      const offset = math.unit(0, unit).toNumber(si)
+      return { scale: math.unit(1, unit).toNumber(si) - offset, offset }
+    },
+  }
+}
+
+/** The affine map of `unit` to the SI unit `si`; throws UnitError (reason set, message generic). */
+function affineTo(unit: string, si: string, kind?: string): Affine {
+  const entry = UNIT_TABLE[si]?.[unit]
+  if (entry !== undefined) return typeof entry === 'number' ? { scale: entry, offset: 0 } : { scale: entry[0], offset: entry[1] }
+  const fb = GROUP_OF.has(unit) ? null : getFallback()
+  const r = fb ? fb.affine(unit, si) : GROUP_OF.has(unit) ? 'incompatible' : 'unknown'
+  if (r === 'unknown') throw new UnitError('unknownUnit', unit, `Unknown unit "${unit}"`, kind)
+  if (r === 'incompatible') throw new UnitError('incompatibleUnit', unit, `Unit "${unit}" cannot be converted to "${si}"`, kind)
+  return r
+}
 
 /** Raised for an unknown unit, or a unit of the wrong dimension for the quantity kind. */
 export class UnitError extends Error {
@@ -117,31 +242,22 @@ function splitPressureSense(unit: string): { base: string; sense: PressureSense 
   return PRESSURE_SUFFIXED[u] ?? { base: u, sense: 'plain' }
 }
 
-// Parsed units are cached: parsing is the slow part of mathjs.
-const unitCache = new Map<string, Unit>()
-function parseUnit(unit: string, kind?: string): Unit {
-  let u = unitCache.get(unit)
-  if (u) return u
-  try {
-    u = math.unit(1, unit) as Unit
-  } catch {
-    throw new UnitError('unknownUnit', unit, `Unknown unit "${unit}"`, kind)
-  }
-  if (unitCache.size > 500) unitCache.clear()
-  unitCache.set(unit, u)
-  return u
-}
-
 /** Convert a value between two units of one dimension (absolute temperatures). */
 function convertPlain(value: number, from: string, to: string, kind?: string): number {
   if (!Number.isFinite(value)) throw new UnitError('notFinite', from, `Value ${value} is not a finite number`, kind)
   if (from === to) return value
-  const uf = parseUnit(from, kind)
-  const ut = parseUnit(to, kind)
-  if (!uf.equalBase(ut)) {
-    throw new UnitError('incompatibleUnit', from, `Unit "${from}" cannot be converted to "${to}"`, kind)
+  const si = GROUP_OF.get(from) ?? GROUP_OF.get(to) ?? to
+  let f: Affine, t: Affine
+  try {
+    f = affineTo(from, si, kind)
+    t = affineTo(to, si, kind)
+  } catch (e) {
+    if (e instanceof UnitError && e.reason === 'incompatibleUnit') {
+      throw new UnitError('incompatibleUnit', from, `Unit "${from}" cannot be converted to "${to}"`, kind)
+    }
+    throw e
   }
-  return (math.unit(value, from) as Unit).toNumber(to)
+  return (value * f.scale + f.offset - t.offset) / t.scale
 }
 
 /**
@@ -172,51 +288,50 @@ function kindSense(kind: QuantityKind): PressureSense {
   return kind === 'pressure' ? 'absolute' : kind === 'pressureGauge' ? 'gauge' : 'plain'
 }
 
-// Every supported conversion is affine (scale and offset), so each (kind, from, to) is
-// worked out once through mathjs and cached as value * scale + offset.
-const affineCache = new Map<string, { scale: number; offset: number }>()
+// Every supported conversion is affine (scale and offset): each (kind, from, to) is worked out
+// once and cached as value * scale + offset.
+const affineCache = new Map<string, Affine>()
 
 function convertForKind(kind: QuantityKind, value: number, from: string, to: string): number {
   if (!Number.isFinite(value)) throw new UnitError('notFinite', from, `Value ${value} is not a finite number`, kind)
   const key = kind + '|' + from + '|' + to
   let m = affineCache.get(key)
   if (!m) {
-    const offset = convertForKindSlow(kind, 0, from, to)
-    const scale = convertForKindSlow(kind, 1, from, to) - offset
-    m = { scale, offset }
+    m = affineForKind(kind, from, to)
     if (affineCache.size > 2000) affineCache.clear()
     affineCache.set(key, m)
   }
   return value * m.scale + m.offset
 }
 
-function convertForKindSlow(kind: QuantityKind, value: number, from: string, to: string): number {
+/** The affine map of a unit of the kind to SI, with the kind named in the error. */
+function kindAffine(kind: QuantityKind, info: QuantityKindInfo, unit: string, side: 'from' | 'to'): Affine {
+  try {
+    return affineTo(unit, info.si, kind)
+  } catch (e) {
+    if (e instanceof UnitError && e.reason === 'incompatibleUnit') {
+      const hint = side === 'from' ? ` (expected e.g. ${info.caseUnit})` : ''
+      throw new UnitError('incompatibleUnit', unit, `Unit "${unit}" is not a unit of ${info.label.toLowerCase()}${hint}`, kind)
+    }
+    throw e
+  }
+}
+
+function affineForKind(kind: QuantityKind, from: string, to: string): Affine {
   const info = kindInfo(kind)
   const sense = kindSense(kind)
   const f = splitPressureSense(from)
   const t = splitPressureSense(to)
-  // check dimension against the kind's SI unit
-  const siU = parseUnit(info.si, kind)
-  const fu = parseUnit(f.base, kind)
-  if (!fu.equalBase(siU)) {
-    throw new UnitError('incompatibleUnit', from, `Unit "${from}" is not a unit of ${info.label.toLowerCase()} (expected e.g. ${info.caseUnit})`, kind)
+  const fa = kindAffine(kind, info, f.base, 'from')
+  const ta = kindAffine(kind, info, t.base, 'to')
+  let shift = 0 // Pa added between the two senses
+  if (sense !== 'plain') {
+    const fs = f.sense === 'plain' ? sense : f.sense
+    const ts = t.sense === 'plain' ? sense : t.sense
+    if (fs !== ts) shift = fs === 'gauge' ? STANDARD_ATMOSPHERE : -STANDARD_ATMOSPHERE
   }
-  const tu = parseUnit(t.base, kind)
-  if (!tu.equalBase(siU)) {
-    throw new UnitError('incompatibleUnit', to, `Unit "${to}" is not a unit of ${info.label.toLowerCase()}`, kind)
-  }
-  if (sense === 'plain') {
-    if (f.sense !== 'plain' || t.sense !== 'plain') {
-      // a gauge/absolute tag on a pressure difference or stress is meaningless: ignore the tag
-      return convertPlain(value, f.base, t.base, kind)
-    }
-    return convertPlain(value, from, to, kind)
-  }
-  const fs = f.sense === 'plain' ? sense : f.sense
-  const ts = t.sense === 'plain' ? sense : t.sense
-  let pa = convertPlain(value, f.base, 'Pa', kind)
-  if (fs !== ts) pa += fs === 'gauge' ? STANDARD_ATMOSPHERE : -STANDARD_ATMOSPHERE
-  return convertPlain(pa, 'Pa', t.base, kind)
+  // a gauge/absolute tag on a pressure difference or stress is meaningless: the tag is ignored
+  return { scale: fa.scale / ta.scale, offset: (fa.offset + shift - ta.offset) / ta.scale }
 }
 
 function splitQuantity(kind: QuantityKind, q: QuantityInput): { value: number; unit: string } {

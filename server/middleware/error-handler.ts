@@ -2,7 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
 import multer from 'multer'
 import { ConnectionError, DatabaseError, TimeoutError } from 'sequelize'
-import { AppError, NotFoundError, zodDetails } from '../errors.ts'
+import { AppError, NotFoundError, ServiceBusyError, zodDetails } from '../errors.ts'
 import { logger } from '../logger.ts'
 import type { ErrorBody } from '../../shared/schemas/common.ts'
 
@@ -89,6 +89,7 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
   if (status === 503) logger.warn({ requestId: req.requestId, path: req.path }, 'database unavailable')
   else if (status >= 500) logger.error({ err, requestId: req.requestId, path: req.path }, 'request failed')
   if (res.headersSent) return
+  if (err instanceof ServiceBusyError) res.setHeader('Retry-After', String(err.retryAfterSeconds))
   res.status(status).json({ error: body })
 }
 

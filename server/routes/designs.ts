@@ -29,7 +29,11 @@ export function designRoutes(router: Router): Router {
       summary: 'Design one case, { case, costBasis? , siteId? } or { cases: [...] } (stateless)',
       status: 200,
       doc: { body: evaluateRequest, response: z.union([pricedDesignSchema, z.array(pricedDesignSchema)]) },
-      handler: (req) => svc.evaluate(req.user!, req.body),
+      handler: async (req, res) => {
+        const out = await svc.evaluate(req.user!, req.body)
+        if (Array.isArray(out)) res.setHeader('X-Cases-Refused', String(out.filter((x) => typeof x === 'object' && x !== null && 'error' in x).length))
+        return out
+      },
     },
     {
       method: 'post', path: '/designs/rate', access: { kind: 'signedIn' },

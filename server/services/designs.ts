@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { ForbiddenError, ValidationError, zodDetails } from '../errors.ts'
+import { AppError, ForbiddenError, ValidationError, zodDetails } from '../errors.ts'
 import { caseFromRequest, parseBasis, parseSearch, runDesign, runOptimiseAsync, runRate, assertFinite, libraryWith } from './engine-gateway.ts'
 import { windowOptionsSchema } from '../../shared/schemas/rating.ts'
 import { siteLibrary } from './runs.ts'
@@ -61,6 +61,18 @@ export async function listComponents(user: AuthUser, siteId: number | undefined)
   }))
 }
 
+/** The slot of one batch case: its design, or { error: { code, message, issues: [{ path, message }] } }. */
+function designSlot(run: () => unknown): unknown {
+  try {
+    const r = run()
+    assertFinite(r)
+    return r
+  } catch (e) {
+    if (!(e instanceof AppError) || e.status >= 500) throw e
+    return { error: { code: e.code, message: e.message, issues: e.details.map((d) => ({ path: d.path, message: d.message })) } }
+  }
+}
+
 /** Design one case ({ case } or the case itself) or a batch ({ cases: [...] }), priced when a basis applies. */
 export async function evaluate(user: AuthUser, body: unknown) {
   if (!body || typeof body !== 'object' || Array.isArray(body)) throw new ValidationError('The body must be a JSON object.', [{ path: 'body', message: 'must be an object' }])
@@ -71,7 +83,8 @@ export async function evaluate(user: AuthUser, body: unknown) {
   let out: unknown
   if (Array.isArray(b.cases)) {
     if (b.cases.length > MAX_BATCH) throw new ValidationError('Too many cases.', [{ path: 'body.cases', message: `at most ${MAX_BATCH} cases per request` }])
-    out = b.cases.map((c, i) => runDesign(caseFromRequest(c, ctx.library, `body.cases.${i}`), basis, `body.cases.${i}`))
+    // Each case its own slot: the design, or why it was refused; one refused case never stops the others.
+    return b.cases.map((c, i) => designSlot(() => runDesign(caseFromRequest(c, ctx.library, `body.cases.${i}`), basis, `body.cases.${i}`)))
   } else if ('case' in b) {
     out = runDesign(caseFromRequest(b.case, ctx.library, 'body.case'), basis, 'body.case')
   } else {

@@ -1,16 +1,9 @@
 import { z } from 'zod'
 
 /** Roles are held per site membership. */
-export const ROLES = ['admin', 'economist', 'engineer', 'reviewer'] as const
-export type Role = (typeof ROLES)[number]
+import { ROLES, ROLE_LABELS, type Role } from '../roles.ts'
+export { ROLES, ROLE_LABELS, type Role }
 export const roleSchema = z.enum(ROLES)
-
-export const ROLE_LABELS: Record<Role, string> = {
-  admin: 'Administrator',
-  economist: 'Economist',
-  engineer: 'Engineer',
-  reviewer: 'Reviewer',
-}
 
 export const STUDY_STATUSES = ['draft', 'in_review', 'approved', 'returned', 'archived'] as const
 export type StudyStatus = (typeof STUDY_STATUSES)[number]

@@ -2,7 +2,13 @@ import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import type { UserView } from '@shared/schemas/identity.ts'
 import type { Role, UnitSystem } from '@shared/schemas/common.ts'
-import { authApi } from '@/api/identity.ts'
+// The identity API (with the schema library) loads on first use, not with the first screen.
+const authApi = {
+  me: async () => (await import('@/api/identity.ts')).authApi.me(),
+  login: async (email: string, password: string) => (await import('@/api/identity.ts')).authApi.login(email, password),
+  logout: async () => (await import('@/api/identity.ts')).authApi.logout(),
+  updateMe: async (patch: { unitSystem: UnitSystem }) => (await import('@/api/identity.ts')).authApi.updateMe(patch),
+}
 import { ApiError } from '@/api/http.ts'
 
 /** The signed-in person. The session itself lives in an httpOnly cookie, never in the page. */

@@ -2,7 +2,8 @@ import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import type { SiteView } from '@shared/schemas/identity.ts'
 import type { Role } from '@shared/schemas/common.ts'
-import { sitesApi } from '@/api/identity.ts'
+// loaded on first use (see stores/session.ts)
+const sitesApi = { list: async () => (await import('@/api/identity.ts')).sitesApi.list() }
 import { errorText } from '@/api/http.ts'
 import { useSessionStore } from './session.ts'
 

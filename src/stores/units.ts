@@ -21,7 +21,11 @@ export const useUnitsStore = defineStore('units', () => {
 
   function ensureLoaded(): Promise<UnitsModule> {
     if (lib.value) return Promise.resolve(lib.value)
-    loading ??= import('@shared/units.ts')
+    // The table of common units first; mathjs (any other unit) follows in the background.
+    loading ??= import('@shared/units.ts').then((m) => {
+      void import('@shared/units-mathjs.ts').then((x) => x.installMathjsUnits())
+      return m
+    })
     return loading.then((m) => {
       lib.value = m
       return m

@@ -67,3 +67,32 @@ describe('units: conversions against published exact factors', () => {
     }
   })
 })
+
+describe('units: the built-in table against published factors and a general-purpose library', () => {
+  it('gallon, mmHg, torr, inch of water (NIST SP 811 appendix B)', () => {
+    expectPublished({ source: NIST, where: 'gallon (U.S.) 3.785412 E-03 m3', expected: 3.785412e-3, tolerance: 5e-10 }, convert(1, 'gpm', 'm^3/min'))
+    expectPublished({ source: NIST, where: 'millimeter of mercury 1.333224 E+02 Pa', expected: 133.3224, tolerance: 5e-5 }, convert(1, 'mmHg', 'Pa'))
+    expectPublished({ source: NIST, where: 'torr 1.333224 E+02 Pa', expected: 133.3224, tolerance: 5e-5 }, convert(1, 'torr', 'Pa'))
+    expectPublished({ source: NIST, where: 'inch of water (39.2 F) 2.49082 E+02 Pa; conventional 2.4908891 E+02', expected: 249.08891, tolerance: 1e-6 }, convert(1, 'inH2O', 'Pa'))
+  })
+  it('every unit of the table converts as mathjs converts it (mathjs 15, unit functions)', async () => {
+    const { mathjsFallback, UNIT_TABLE_FOR_TESTS } = await import('../../shared/units.ts')
+    const mathjs = await import('mathjs')
+    const ref = mathjsFallback(mathjs as unknown as Parameters<typeof mathjsFallback>[0])
+    for (const [si, units] of Object.entries(UNIT_TABLE_FOR_TESTS)) {
+      for (const [unit, entry] of Object.entries(units)) {
+        const [scale, offset] = typeof entry === 'number' ? [entry, 0] : entry
+        const r = ref.affine(unit, si)
+        if (typeof r === 'string') throw new Error(`mathjs does not know ${unit} as ${si}`)
+        // mathjs rounds psi (6894.75729 Pa), mmHg and torr (133.322 Pa); the table keeps the
+        // NIST SP 811 values, checked against it above
+        const tol = unit === 'psi' ? 1e-9 : unit === 'mmHg' || unit === 'torr' ? 5e-6 : 1e-12
+        expect(Math.abs(scale - r.scale) / r.scale, `${unit} -> ${si}`).toBeLessThan(tol)
+        expect(Math.abs(offset - r.offset), `${unit} -> ${si} offset`).toBeLessThan(1e-9)
+      }
+    }
+  }, 60_000)
+  it('a unit outside the table is still understood (loaded on first need): 1 mile = 1609.344 m', () => {
+    expectPublished({ source: NIST, where: 'mile (based on U.S. survey foot is not used; international mile)', expected: 1609.344, tolerance: 1e-9 }, toSI('length', { value: 1, unit: 'mile' }))
+  })
+})

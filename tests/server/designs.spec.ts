@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest'
 import { readFileSync } from 'node:fs'
 import { api, tokenFor, siteIds } from './helpers.ts'
+import { setOptimiseQueueLimit } from '../../server/services/optimise-pool.ts'
 
 const demo = JSON.parse(readFileSync('data/demo-studies.json', 'utf8')) as { studies: { inputs: Record<string, unknown> }[] }
 const ethanolCase = demo.studies[0]!.inputs
@@ -58,9 +59,23 @@ describe('POST /designs/evaluate', () => {
     delete missing.recovery
     expect((await api().post('/api/v1/designs/evaluate').set(await auth()).send(missing)).status).toBe(400)
 
-    const batch = await api().post('/api/v1/designs/evaluate').set(await auth()).send({ cases: [ethanolCase, neg] })
-    expect(batch.status).toBe(400)
-    expect(batch.body.error.details[0].path).toBe('body.cases.1.gas.flow')
+  })
+
+  it('a batch keeps going: each refused case gets its own error slot, the others their design', async () => {
+    const neg = structuredClone(ethanolCase) as { gas: Record<string, unknown> }
+    neg.gas.flow = -5
+    const low = { ...ethanolCase, solventFactor: 0.5 }
+    const batch = await api().post('/api/v1/designs/evaluate').set(await auth()).send({ cases: [ethanolCase, neg, low, { ...ethanolCase, recovery: 0.95 }] })
+    expect(batch.status).toBe(200)
+    expect(batch.body).toHaveLength(4)
+    expect(batch.body[0].summary.recovery).toBeCloseTo(0.985, 6)
+    expect(batch.body[1].error.code).toBe('validation_failed')
+    expect(batch.body[1].error.issues[0].path).toBe('body.cases.1.gas.flow')
+    expect(typeof batch.body[1].error.issues[0].message).toBe('string')
+    expect(batch.body[2].error.code).toBe('infeasible_design')
+    expect(batch.body[2].error.issues[0].path).toBe('body.cases.2.solventFactor')
+    expect(batch.body[3].summary.recovery).toBeCloseTo(0.95, 6)
+    expect(batch.headers['x-cases-refused']).toBe('2')
   })
 
   it('infeasible input: 400/422 with a reason a person understands', async () => {
@@ -106,6 +121,30 @@ describe('POST /designs/optimize', () => {
     const b = await api().post('/api/v1/designs/optimize').set(await auth()).send(body)
     expect(a.status).toBe(200)
     expect(b.body).toEqual(a.body)
+  })
+
+  it('a full optimisation queue answers 503 with Retry-After in the usual error shape; queued ones finish', async () => {
+    const old = setOptimiseQueueLimit(1)
+    try {
+      const token = await auth()
+      const flows = Array.from({ length: 8 }, (_, i) => 400 + i * 3.1)
+      const answers = await Promise.all(
+        flows.map((flow) =>
+          api().post('/api/v1/designs/optimize').set(token)
+            .send({ case: { ...ethanolCase, gas: { ...(ethanolCase.gas as object), flow } }, search: { sensitivity: false } }),
+        ),
+      )
+      const busy = answers.filter((a) => a.status === 503)
+      expect(busy.length).toBeGreaterThan(0)
+      for (const b of busy) {
+        expect(Number(b.headers['retry-after'])).toBeGreaterThanOrEqual(1)
+        expect(b.body.error.code).toBe('busy')
+        expect(typeof b.body.error.message).toBe('string')
+      }
+      expect(answers.filter((a) => a.status === 200).length + busy.length).toBe(flows.length)
+    } finally {
+      setOptimiseQueueLimit(old)
+    }
   })
 
   it('bad search settings: 400 with the path', async () => {

@@ -1,5 +1,4 @@
 import { ref } from 'vue'
-import { outboxApi } from '@/api/outbox.ts'
 
 /** True once GET /outbox answered 200 (development mail capture, system admins only). */
 export const outboxAvailable = ref(false)
@@ -14,8 +13,8 @@ export function probeOutbox(userId: number | null | undefined, isSystemAdmin: bo
   }
   if (probed === userId) return
   probed = userId
-  outboxApi
-    .get({ quiet401: true })
+  import('@/api/outbox.ts')
+    .then(({ outboxApi }) => outboxApi.get({ quiet401: true }))
     .then(() => {
       outboxAvailable.value = true
     })

@@ -15,7 +15,7 @@
 import { readFileSync, statSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
 import { reportCliError } from './errors.ts'
-import { evaluateBatch, evaluateCase, ENGINE_VERSION } from '../engine/index.ts'
+import { evaluateBatch, evaluateCase, InvalidInputError, ENGINE_VERSION } from '../engine/index.ts'
 import type { DesignResult } from '../engine/contract.ts'
 import { priceDesign } from '../engine/costing/index.ts'
 import { costBasisFrom, readCaseFile } from './input.ts'

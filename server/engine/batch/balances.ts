@@ -17,7 +17,7 @@
  */
 import type { EquilibriumCurve } from '../equilibrium/models.ts'
 import { stagesKremser } from '../balances/kremser.ts'
-import { minimumSlopeGeneral } from '../balances/minimumSolvent.ts'
+import { minimumSlope } from '../balances/minimumSolvent.ts'
 import { stepStages } from '../balances/stageByStage.ts'
 
 /** Why a case has no answer (0: it has one). The codes are the scalar design's issue codes. */
@@ -117,13 +117,10 @@ export function designBalancesBatch(input: BalanceBatchInput, method: 'kremser' 
       const X0 = x0 / (1 - x0)
       const yEqLean = K * x0
       const xStarN = yIn / K
-      // end pinch: X*_N from the inlet gas on the ratio basis (as eqXofY)
-      const xs = YIn / (1 + YIn) / K
-      const XsN = xs / (1 - xs)
       if (y1 <= yEqLean) status = S.leanSolventLoaded
       else if (!(xStarN > 0 && xStarN < 0.99) || Math.abs(K * xStarN - yIn) > 1e-7 * yIn) status = S.equilibriumOutOfRange
       else {
-        const sMin = method === 'kremser' ? (YIn - Y1) / (XsN - X0) : minimumSlopeGeneral(eq, Y1, X0, YIn).slope
+        const sMin = minimumSlope(eq, Y1, X0, YIn).slope // the exact solute-free pinch (end or tangent), whatever the method
         if (!(sMin > 0) || !Number.isFinite(sMin)) status = S.noPinch
         else {
           const LpMin = sMin * Vp

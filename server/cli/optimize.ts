@@ -78,6 +78,7 @@ export function main(
   }
 }
 
-if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+// Run directly from source (tsx); the compiled command runs through bin/, where this module is bundled into the entry.
+if (process.argv[1]?.endsWith('.ts') && fileURLToPath(import.meta.url) === process.argv[1]) {
   process.exitCode = main(process.argv.slice(2))
 }

@@ -73,3 +73,6 @@ export function zodDetails(err: ZodError, prefix = ''): ErrorDetail[] {
     code: i.code,
   }))
 }
+
+/** Seconds a client is told to wait (Retry-After) while the database is unreachable. */
+export const DB_RETRY_AFTER_SECONDS = 5

@@ -2,15 +2,12 @@ import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
 import multer from 'multer'
 import { ConnectionError, DatabaseError, TimeoutError } from 'sequelize'
-import { AppError, NotFoundError, ServiceBusyError, zodDetails } from '../errors.ts'
+import { AppError, NotFoundError, ServiceBusyError, zodDetails, DB_RETRY_AFTER_SECONDS } from '../errors.ts'
 import { logger } from '../logger.ts'
 import type { ErrorBody } from '../../shared/schemas/common.ts'
 
 /** JSON 404 for unknown API paths. */
 export const notFound: RequestHandler = (_req, _res, next) => next(new NotFoundError('Route'))
-
-/** Seconds a client should wait before retrying while the database is unreachable. */
-export const DB_RETRY_AFTER_SECONDS = 5
 
 /**
  * A multipart body the parser (busboy, under multer) could not read: cut short, another boundary

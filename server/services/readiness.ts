@@ -1,7 +1,6 @@
 import { QueryTypes } from 'sequelize'
 import { sequelize } from '../db/sequelize.ts'
-import { AppError } from '../errors.ts'
-import { DB_RETRY_AFTER_SECONDS } from '../middleware/error-handler.ts'
+import { AppError, DB_RETRY_AFTER_SECONDS } from '../errors.ts'
 
 /** 503 'unavailable' (with Retry-After from the error handler) when the database is unreachable. */
 export class UnavailableError extends AppError {

@@ -22,16 +22,10 @@ import {
   residualHead,
   weirCrestFrancis,
 } from '../hydraulics/tray.ts'
+import type { EndStreams } from '../column/sizing.ts'
 
-/** The streams at one end of the column (SI). */
-export interface EndStreams {
-  gasMol: number // mol/s
-  gasMass: number // kg/s
-  rhoV: number // kg/m3
-  Q: number // m3/s
-  liqMass: number // kg/s
-  qL: number // m3/s
-}
+/** The streams at one end of the column (SI): the design's own type. */
+export type { EndStreams }
 
 /** The installed tray geometry (SI) and the fixed property factors. */
 export interface TrayGeometry {

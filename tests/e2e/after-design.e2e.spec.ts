@@ -214,7 +214,7 @@ describe('uploads', () => {
     await p.getByTestId('eq-use-saved').click()
     // the case now uses the table model with the five points
     await expect(p.getByRole('radio', { name: 'x–y table' }).isChecked()).resolves.toBe(true)
-    await expect(p.getByLabel('y5').inputValue()).resolves.toBe('0.0118')
+    await expect(p.getByLabel('y5', { exact: true }).inputValue()).resolves.toBe('0.0118')
     expect(s.problems).toEqual([])
   })
 

@@ -16,6 +16,7 @@ import { designBalancesBatch, balanceBatchOutput } from '../server/engine/batch/
 import { optimise } from '../server/engine/optimisation/optimise.ts'
 import { loadPreset } from '../server/engine/costing/presets.ts'
 import { searchSpecSchema } from '../shared/schemas/search.ts'
+import { uncertaintyRow } from './bench-uncertainty.ts'
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..')
 
@@ -232,6 +233,7 @@ export async function benchTable(): Promise<Row[]> {
   await step('command lines', cliRows)
   await step('batch', batchRow)
   await step('engine', engineRows)
+  await step('uncertainty', (r) => uncertaintyRow(r, root))
   await step('API', apiRow)
   await step('client', clientRow)
   return rows

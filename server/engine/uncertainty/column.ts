@@ -9,7 +9,8 @@
  * sample (equilibrium model, geometry, capital cost) is done once here. For the Kremser method
  * the outlet is found from the closed form y_1 = K x_0 + (y_in - K x_0)(1 - 1/A)/(A^N - 1/A)
  * (kremser1930), iterated on A (which depends weakly on the outlet through the end flows) instead
- * of by bisection; the tests hold it to the bisection of the rating path.
+ * of by bisection; the tests hold it to the bisection of the rating path. Every sample keeps the
+ * balance method of the nominal design, so that no sample jumps between methods.
  */
 import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
 import type { DesignResult } from '../contract.ts'

@@ -38,7 +38,7 @@ export function proportionError(k: number, n: number): { standardError: number; 
   const z2 = z * z
   const centre = (p + z2 / (2 * n)) / (1 + z2 / n)
   const half = (z / (1 + z2 / n)) * Math.sqrt((p * (1 - p)) / n + z2 / (4 * n * n))
-  return { standardError: Math.sqrt((p * (1 - p)) / Math.max(1, n - 1)), low95: Math.max(0, centre - half), high95: Math.min(1, centre + half) }
+  return { standardError: Math.sqrt((p * (1 - p)) / Math.max(1, n - 1)), low95: k === 0 ? 0 : Math.max(0, centre - half), high95: k === n ? 1 : Math.min(1, centre + half) }
 }
 
 /** Ranks 0..n-1 of the values (ties share their mean rank; non-finite values rank last, in order). */

@@ -15,6 +15,7 @@ export const CLI_ENTRIES = {
   design: 'server/cli/bin/design.ts',
   optimize: 'server/cli/bin/optimize.ts',
   rate: 'server/cli/bin/rate.ts',
+  uncertainty: 'server/cli/bin/uncertainty.ts',
 }
 /** The server: npm packages stay in node_modules. */
 export const ENTRIES = {

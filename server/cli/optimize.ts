@@ -2,7 +2,9 @@
  * Command line: `npm run --silent optimize -- FILE.json`
  *
  * FILE: { "case": {...}, "costBasis": {...} | { "preset": "name" } (omitted: the demo basis),
- *         "search": {...} (optional; every field has a default) }
+ *         "search": {...} (optional; every field has a default),
+ *         "robust": { "confidence": 0.95, "uncertainty": {...} } (optional: the lowest expected cost
+ *         that meets the recovery floor with that confidence, beside the nominal optimum) }
  * Prints { optimum, evaluations, curves, sensitivity, ... } as JSON on stdout.
  * Exit codes: 0 ok; 2 bad input (field path on stderr) or no feasible design (the reasons); 1 other.
  * Add --no-sensitivity to skip the tornado (faster).
@@ -14,6 +16,9 @@ import { optimise } from '../engine/optimisation/optimise.ts'
 import type { OptimiseResult } from '../engine/optimisation/core.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import { readCaseFile, costBasisFrom, searchFrom, isObject } from './input.ts'
+import { robustOptimum } from '../engine/uncertainty/robust.ts'
+import { invalidFromZod } from '../engine/index.ts'
+import { robustSpecSchema } from '../../shared/schemas/uncertainty.ts'
 
 /** The JSON printed by the command (the full design of the optimum is left out; see `design`). */
 export function optimizeOutput(res: OptimiseResult, basis: CostBasisData) {
@@ -52,9 +57,14 @@ export function runOptimizeFile(raw: unknown, opts: { sensitivity?: boolean } = 
   const search = searchFrom(raw.search)
   if (opts.sensitivity === false) search.sensitivity = false
   for (const k of Object.keys(raw)) {
-    if (!['case', 'costBasis', 'search', 'name', 'description'].includes(k)) throw new InvalidInputError(k, 'unknown top-level field')
+    if (!['case', 'costBasis', 'search', 'robust', 'name', 'description'].includes(k)) throw new InvalidInputError(k, 'unknown top-level field')
   }
-  return optimizeOutput(optimise(c, basis, search), basis)
+  if (raw.robust === undefined) return optimizeOutput(optimise(c, basis, search), basis)
+  // { "robust": { "confidence": 0.95, "uncertainty": {...} } }: the robust optimum beside the nominal one
+  const r = robustSpecSchema.safeParse(raw.robust)
+  if (!r.success) throw invalidFromZod(r.error, 'robust.')
+  const res = optimise(c, basis, search)
+  return { ...optimizeOutput(res, basis), robust: robustOptimum(c, basis, search, res, r.data) }
 }
 
 /** Run the command; returns the exit code. */

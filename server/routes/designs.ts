@@ -6,6 +6,7 @@ import { pricedDesignSchema, optimisationResultSchema } from '../../shared/schem
 import { caseSchema } from '../../shared/schemas/case.ts'
 import { searchSpecSchema } from '../../shared/schemas/search.ts'
 import { ratingResultSchema } from '../../shared/schemas/rating.ts'
+import { robustResultSchema, robustSpecSchema, uncertaintyRequestSchema, uncertaintyResultSchema } from '../../shared/schemas/uncertainty.ts'
 
 const siteAndBasis = {
   siteId: z.number().int().positive().optional().meta({ description: "Use this site's components and the cost basis in force" }),
@@ -13,7 +14,7 @@ const siteAndBasis = {
 }
 /** The documented request forms (the case may also be sent bare, or as { cases: [...] } for a batch). */
 const evaluateRequest = z.looseObject({ case: caseSchema, ...siteAndBasis })
-const optimiseRequest = z.looseObject({ case: caseSchema, search: searchSpecSchema.optional(), ...siteAndBasis })
+const optimiseRequest = z.looseObject({ case: caseSchema, search: searchSpecSchema.optional(), robust: robustSpecSchema.optional(), ...siteAndBasis })
 
 export function designRoutes(router: Router): Router {
   return defineRoutes(router, [
@@ -44,10 +45,17 @@ export function designRoutes(router: Router): Router {
     },
     {
       method: 'post', path: '/designs/optimize', access: { kind: 'signedIn' },
-      summary: 'Lowest-cost design of { case, costBasis?, search?, siteId? } with curves and sensitivity (stateless)',
+      summary: 'Lowest-cost design of { case, costBasis?, search?, robust?, siteId? } with curves and sensitivity (stateless)',
       status: 200,
-      doc: { body: optimiseRequest, response: optimisationResultSchema },
+      doc: { body: optimiseRequest, response: optimisationResultSchema.extend({ robust: robustResultSchema.optional() }) },
       handler: (req) => svc.optimiseCase(req.user!, req.body),
+    },
+    {
+      method: 'post', path: '/designs/uncertainty', access: { kind: 'signedIn' },
+      summary: 'Chance the nominal design of { case, costBasis?, search?, uncertainty?, siteId? } meets its target (stateless)',
+      status: 200,
+      doc: { body: uncertaintyRequestSchema, response: uncertaintyResultSchema },
+      handler: (req) => svc.uncertaintyCase(req.user!, req.body),
     },
   ])
 }

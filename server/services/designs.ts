@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { AppError, ForbiddenError, ValidationError, zodDetails } from '../errors.ts'
-import { caseFromRequest, parseBasis, parseSearch, runDesign, runOptimiseAsync, runRate, assertFinite, libraryWith } from './engine-gateway.ts'
+import { caseFromRequest, parseBasis, parseSearch, runDesign, runOptimiseAsync, runRate, runUncertaintyAsync, assertFinite, libraryWith } from './engine-gateway.ts'
+import { robustSpecSchema, uncertaintySpecSchema } from '../../shared/schemas/uncertainty.ts'
 import { windowOptionsSchema } from '../../shared/schemas/rating.ts'
 import { siteLibrary } from './runs.ts'
 import { basisInForce } from './cost-bases.ts'
@@ -116,11 +117,28 @@ export async function rate(user: AuthUser, body: unknown) {
 
 /** The lowest-cost design of { case, costBasis?, search?, siteId? } with curves and sensitivity. */
 export async function optimiseCase(user: AuthUser, body: unknown) {
-  const b = parseOr400(envelope.extend({ case: z.unknown(), search: z.unknown().optional() }), body, 'body')
+  const b = parseOr400(envelope.extend({ case: z.unknown(), search: z.unknown().optional(), robust: z.unknown().optional() }), body, 'body')
   const ctx = await siteContext(user, b.siteId)
   const basis = resolveBasis(b.costBasis, ctx.basis, 'body.costBasis') ?? loadPreset(DEFAULT_PRESET)
   const c = caseFromRequest(b.case, ctx.library, 'body.case')
-  const out = await runOptimiseAsync(c, basis, parseSearch(b.search, 'body.search'), 'body.case')
+  const search = parseSearch(b.search, 'body.search')
+  const robust = b.robust === undefined ? undefined : parseOr400(robustSpecSchema, b.robust, 'body.robust')
+  const out = await runOptimiseAsync(c, basis, search, 'body.case', robust)
+  assertFinite(out)
+  return out
+}
+
+/**
+ * The chance a design meets its target: { case, costBasis?, search? (emissionLimit), uncertainty?, siteId? }.
+ * The case is designed at nominal values and the built column rated in every sample.
+ */
+export async function uncertaintyCase(user: AuthUser, body: unknown) {
+  const b = parseOr400(envelope.extend({ case: z.unknown(), search: z.unknown().optional(), uncertainty: uncertaintySpecSchema.optional() }), body, 'body')
+  const ctx = await siteContext(user, b.siteId)
+  const basis = resolveBasis(b.costBasis, ctx.basis, 'body.costBasis') ?? loadPreset(DEFAULT_PRESET)
+  const c = caseFromRequest(b.case, ctx.library, 'body.case')
+  const search = parseSearch(b.search, 'body.search')
+  const out = await runUncertaintyAsync(c, basis, b.uncertainty ?? uncertaintySpecSchema.parse({}), search.emissionLimit, 'body.case')
   assertFinite(out)
   return out
 }

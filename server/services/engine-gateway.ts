@@ -6,7 +6,8 @@ import { designSI } from '../engine/design.ts'
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
 import { priceDesign } from '../engine/costing/index.ts'
 import { optimise } from '../engine/optimisation/index.ts'
-import { optimiseAsync } from './optimise-pool.ts'
+import { optimiseAsync, uncertaintyAsync } from './optimise-pool.ts'
+import type { RobustSpec, UncertaintySpec } from '../../shared/schemas/uncertainty.ts'
 import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
 import type { DesignResult } from '../engine/contract.ts'
 import { ValidationError, InfeasibleError, zodDetails } from '../errors.ts'
@@ -96,9 +97,18 @@ export function runOptimise(c: CaseSI, basis: CostBasisData, search: SearchSpec,
 }
 
 /** The same, on a worker thread (and cached): for request handlers. */
-export async function runOptimiseAsync(c: CaseSI, basis: CostBasisData, search: SearchSpec, prefix = 'body.case') {
+export async function runOptimiseAsync(c: CaseSI, basis: CostBasisData, search: SearchSpec, prefix = 'body.case', robust?: RobustSpec) {
   try {
-    return await optimiseAsync(c, basis, search)
+    return await optimiseAsync(c, basis, search, robust)
+  } catch (e) {
+    return toApiError(e, prefix)
+  }
+}
+
+/** An uncertainty propagation on a worker thread (and cached): for request handlers. */
+export async function runUncertaintyAsync(c: CaseSI, basis: CostBasisData, spec: UncertaintySpec, emissionLimit: number | undefined, prefix = 'body.case') {
+  try {
+    return await uncertaintyAsync(c, basis, spec, emissionLimit)
   } catch (e) {
     return toApiError(e, prefix)
   }

@@ -1,8 +1,7 @@
 import { Worker } from 'node:worker_threads'
 import { availableParallelism } from 'node:os'
 import { createHash } from 'node:crypto'
-import { optimise } from '../engine/optimisation/index.ts'
-import { NoFeasibleDesignError, type OptimiseResult } from '../engine/optimisation/core.ts'
+import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
 import { logger } from '../logger.ts'
 import { ServiceBusyError } from '../errors.ts'
@@ -10,6 +9,8 @@ import type { CaseSI } from '../engine/case.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { SearchSpec } from '../../shared/schemas/search.ts'
 import type { WorkerError } from '../workers/optimise-worker.ts'
+import { runJob, type EngineJob, type JobResult, type OptimiseAnswer } from '../workers/jobs.ts'
+import type { RobustSpec, UncertaintyResult, UncertaintySpec } from '../../shared/schemas/uncertainty.ts'
 
 /**
  * Optimisations run on worker threads (one per core) so that one long optimisation never stalls
@@ -39,7 +40,7 @@ export function optimiseQueueState() {
   return { workers: WORKERS, busy: slots.filter((s) => s.busy > 0).length, waiting: waiting.length, maxQueue: MAX_QUEUE }
 }
 
-type Pending = { resolve: (r: OptimiseResult) => void; reject: (e: unknown) => void; job: { c: CaseSI; basis: CostBasisData; search: SearchSpec }; started: number }
+type Pending = { resolve: (r: JobResult) => void; reject: (e: unknown) => void; job: EngineJob; started: number }
 interface Slot {
   worker: Worker
   busy: number
@@ -75,7 +76,7 @@ function spawn(): Slot {
       })
   const slot: Slot = { worker, busy: 0 }
   worker.unref()
-  worker.on('message', (m: { id: number; ok: boolean; result?: OptimiseResult; error?: WorkerError }) => {
+  worker.on('message', (m: { id: number; ok: boolean; result?: JobResult; error?: WorkerError }) => {
     const p = pending.get(m.id)
     if (!p) return
     pending.delete(m.id)
@@ -93,7 +94,7 @@ function spawn(): Slot {
       if (p.slot === slot) {
         pending.delete(id)
         try {
-          p.resolve(optimise(p.job.c, p.job.basis, p.job.search))
+          p.resolve(runJob(p.job))
         } catch (e) {
           p.reject(e)
         }
@@ -103,7 +104,7 @@ function spawn(): Slot {
     if (i >= 0) slots.splice(i, 1)
     for (const w of waiting.splice(0)) {
       try {
-        w.resolve(optimise(w.job.c, w.job.basis, w.job.search))
+        w.resolve(runJob(w.job))
       } catch (e) {
         w.reject(e)
       }
@@ -124,15 +125,15 @@ function leastBusy(): Slot | null {
   return slots.reduce((a, b) => (b.busy < a.busy ? b : a))
 }
 
-const cache = new Map<string, OptimiseResult>()
-/** Optimisations under way, by key: a second identical request waits for the first. */
-const inFlight = new Map<string, Promise<OptimiseResult>>()
-function keyOf(c: CaseSI, basis: CostBasisData, search: SearchSpec): string {
-  return createHash('sha256').update(JSON.stringify([c, basis, search])).digest('base64url')
+const cache = new Map<string, JobResult>()
+/** Jobs under way, by key: a second identical request waits for the first. */
+const inFlight = new Map<string, Promise<JobResult>>()
+function keyOf(job: EngineJob): string {
+  return createHash('sha256').update(JSON.stringify(job)).digest('base64url')
 }
 
-export async function optimiseAsync(c: CaseSI, basis: CostBasisData, search: SearchSpec): Promise<OptimiseResult> {
-  const key = keyOf(c, basis, search)
+async function runPooled(job: EngineJob): Promise<JobResult> {
+  const key = keyOf(job)
   const hit = cache.get(key)
   if (hit) {
     cache.delete(key)
@@ -141,10 +142,20 @@ export async function optimiseAsync(c: CaseSI, basis: CostBasisData, search: Sea
   }
   let running = inFlight.get(key)
   if (!running) {
-    running = compute(key, c, basis, search).finally(() => inFlight.delete(key))
+    running = compute(key, job).finally(() => inFlight.delete(key))
     inFlight.set(key, running)
   }
   return structuredClone(await running)
+}
+
+/** An optimisation (and the robust optimum beside it when `robust` is given) on a worker. */
+export async function optimiseAsync(c: CaseSI, basis: CostBasisData, search: SearchSpec, robust?: RobustSpec): Promise<OptimiseAnswer> {
+  return (await runPooled(robust ? { c, basis, search, robust } : { c, basis, search })) as OptimiseAnswer
+}
+
+/** An uncertainty propagation on a worker (same queue and bound as the optimisations). */
+export async function uncertaintyAsync(c: CaseSI, basis: CostBasisData, spec: UncertaintySpec, emissionLimit?: number): Promise<UncertaintyResult> {
+  return (await runPooled({ kind: 'uncertainty', c, basis, spec, ...(emissionLimit !== undefined ? { emissionLimit } : {}) })) as UncertaintyResult
 }
 
 /** Hands waiting jobs to idle workers. */
@@ -159,19 +170,19 @@ function dispatch(): void {
   }
 }
 
-async function compute(key: string, c: CaseSI, basis: CostBasisData, search: SearchSpec): Promise<OptimiseResult> {
+async function compute(key: string, job: EngineJob): Promise<JobResult> {
   const slot = leastBusy()
-  let result: OptimiseResult
+  let result: JobResult
   if (!slot) {
-    result = optimise(c, basis, search)
+    result = runJob(job)
   } else {
     if (waiting.length >= MAX_QUEUE) {
       const seconds = Math.max(1, Math.ceil(((waiting.length / Math.max(1, slots.length)) * meanMs) / 1000))
       throw new ServiceBusyError('The optimiser is busy with other requests; try again in a few seconds.', seconds)
     }
     const id = nextId++
-    result = await new Promise<OptimiseResult>((resolve, reject) => {
-      waiting.push({ id, job: { c, basis, search }, resolve, reject })
+    result = await new Promise<JobResult>((resolve, reject) => {
+      waiting.push({ id, job, resolve, reject })
       dispatch()
     })
   }

@@ -1,21 +1,14 @@
 import { parentPort } from 'node:worker_threads'
-import { optimise } from '../engine/optimisation/index.ts'
 import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
-import type { CaseSI } from '../engine/case.ts'
-import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
-import type { SearchSpec } from '../../shared/schemas/search.ts'
+import { runJob, type EngineJob } from './jobs.ts'
 
 /**
  * Runs optimisations off the HTTP thread. Engine errors travel back as plain data and are
  * rebuilt into their classes by the pool (server/services/optimise-pool.ts).
  */
-export interface OptimiseJob {
-  id: number
-  c: CaseSI
-  basis: CostBasisData
-  search: SearchSpec
-}
+/** A job as posted: its id and the work (./jobs.ts). */
+export type OptimiseJob = { id: number } & EngineJob
 
 export type WorkerError =
   | { kind: 'InvalidInputError'; path: string; reason: string; issues: InvalidInputError['issues'] }
@@ -34,7 +27,7 @@ function describe(e: unknown): WorkerError {
 
 parentPort?.on('message', (job: OptimiseJob) => {
   try {
-    parentPort!.postMessage({ id: job.id, ok: true, result: optimise(job.c, job.basis, job.search) })
+    parentPort!.postMessage({ id: job.id, ok: true, result: runJob(job) })
   } catch (e) {
     parentPort!.postMessage({ id: job.id, ok: false, error: describe(e) })
   }

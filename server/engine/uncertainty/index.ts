@@ -22,3 +22,4 @@ export function uncertaintySI(c: CaseSI, basis: CostBasisData, spec: Uncertainty
 
 export { propagate, drawSamples, rateAll, targetOf, type SampleSet, type Target } from './propagate.ts'
 export { fixColumn, rateSample, kremserOutlet } from './column.ts'
+export { robustOptimum } from './robust.ts'

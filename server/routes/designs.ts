@@ -6,7 +6,7 @@ import { pricedDesignSchema, optimisationResultSchema } from '../../shared/schem
 import { caseSchema } from '../../shared/schemas/case.ts'
 import { searchSpecSchema } from '../../shared/schemas/search.ts'
 import { ratingResultSchema } from '../../shared/schemas/rating.ts'
-import { robustResultSchema, robustSpecSchema, uncertaintyRequestSchema, uncertaintyResultSchema } from '../../shared/schemas/uncertainty.ts'
+import { robustSpecSchema, uncertaintyRequestSchema, uncertaintyResultSchema } from '../../shared/schemas/uncertainty.ts'
 
 const siteAndBasis = {
   siteId: z.number().int().positive().optional().meta({ description: "Use this site's components and the cost basis in force" }),
@@ -47,7 +47,7 @@ export function designRoutes(router: Router): Router {
       method: 'post', path: '/designs/optimize', access: { kind: 'signedIn' },
       summary: 'Lowest-cost design of { case, costBasis?, search?, robust?, siteId? } with curves and sensitivity (stateless)',
       status: 200,
-      doc: { body: optimiseRequest, response: optimisationResultSchema.extend({ robust: robustResultSchema.optional() }) },
+      doc: { body: optimiseRequest, response: optimisationResultSchema },
       handler: (req) => svc.optimiseCase(req.user!, req.body),
     },
     {

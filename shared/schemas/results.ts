@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { robustResultSchema, uncertaintyResultSchema } from './uncertainty.ts'
 
 /**
  * The answers of the engine, defined once: the design engine, the cost model and the optimiser
@@ -224,6 +225,7 @@ export const optimisationResultSchema = z.looseObject({
     ms: z.record(z.string(), finite),
   }).optional(),
   cautions: z.array(z.string()),
+  robust: robustResultSchema.optional().meta({ description: 'the robust optimum, when the request asked for one ({ robust: { confidence, uncertainty } })' }),
 })
 
 /** A stored run's result: a priced design or an optimisation. */
@@ -261,6 +263,8 @@ export const answerSchemas = {
   BoundHit: boundHitSchema,
   OptimisationResult: optimisationResultSchema,
   StoredRun: storedRunSchema,
+  UncertaintyResult: uncertaintyResultSchema,
+  RobustResult: robustResultSchema,
 } as const
 
 /**

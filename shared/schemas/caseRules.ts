@@ -100,7 +100,7 @@ export const CASE_FIELD_RULES: Record<string, CaseFieldRule> = {
 
 /** The rule of a case path (indices in the path match `*`), or undefined. */
 export function ruleFor(path: string): CaseFieldRule | undefined {
-  return CASE_FIELD_RULES[path] ?? CASE_FIELD_RULES[path.replace(/\.\d+(?=\.|$)/g, '.*')]
+  return CASE_FIELD_RULES[path] ?? CASE_FIELD_RULES[path.replace(/\.\d+(?=\.)/g, '.*')]
 }
 
 // ------------------------------------------------------------------ the person's unit system
@@ -166,13 +166,17 @@ export function typicalText(rule: CaseFieldRule, system: ShowSystem | null): str
   if (!rule.typical) return ''
   const [lo, hi] = rule.typical
   const unit = shownUnit(rule.shown, system)
-  return withUnit(`${trim(caseToShown(rule.shown, lo, system), 2)}–${trim(caseToShown(rule.shown, hi, system), 2)}`, unit)
+  return withUnit(`${trim(caseToShown(rule.shown, lo, system), 3)}–${trim(caseToShown(rule.shown, hi, system), 3)}`, unit)
 }
 
-/** The default the engine takes when the field is blank, in the person's units, or ''. */
-export function defaultText(rule: CaseFieldRule, system: ShowSystem | null): string {
+/**
+ * The default the engine takes when the field is blank, in the person's units, or ''. Without
+ * the unit when `bare` (a field shows its unit beside the number).
+ */
+export function defaultText(rule: CaseFieldRule, system: ShowSystem | null, bare = false): string {
   if (rule.default === undefined) return ''
-  return typeof rule.default === 'string' ? rule.default : formatCaseValue(rule.shown, rule.default, system)
+  if (typeof rule.default === 'string') return rule.default
+  return bare ? trim(caseToShown(rule.shown, rule.default, system)) : formatCaseValue(rule.shown, rule.default, system)
 }
 
 /**

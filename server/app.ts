@@ -9,6 +9,7 @@ import { config as defaultConfig, trustProxyValue, type Config } from './config.
 import { hsts, noStore } from './middleware/transport-security.ts'
 import { logger } from './logger.ts'
 import { requestId } from './middleware/request-id.ts'
+import { unitSystem } from './middleware/unit-system.ts'
 import { staticClient, clientFallback } from './middleware/static-client.ts'
 import { errorHandler, notFound } from './middleware/error-handler.ts'
 import { newRouter } from './routes/define.ts'
@@ -51,6 +52,7 @@ export function createApp(overrides: Partial<Config> = {}): Express {
   app.use(hsts(cfg))
   app.use(pinoHttp({ logger, genReqId: (req) => (req as express.Request).id, autoLogging: { ignore: (req) => req.url === '/api/v1/health' } }))
   app.use(express.json({ limit: '512kb' }))
+  app.use('/api', unitSystem)
   app.use(cookieParser())
 
   const api = newRouter()

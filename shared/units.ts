@@ -372,3 +372,6 @@ export function isUnitOf(kind: QuantityKind, unit: string): boolean {
     return false
   }
 }
+
+
+export { prettyUnit } from './unitText.ts'

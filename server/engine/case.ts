@@ -29,6 +29,9 @@ export { findComponent, mergeLibraries, type ComponentLibrary, type LibraryCompo
 export type { CaseSI, EquilibriumSI } from './caseParts/types.ts'
 export { CASE_DEFAULTS } from './caseParts/defaults.ts'
 
+/** An x–y table measured more than this far [K] from the column temperature is warned about (common practice, no source). */
+export const TABLE_TEMPERATURE_TOLERANCE = 2
+
 /**
  * Resolve names, apply defaults, convert to SI and check the input.
  * @throws InvalidInputError (path + reason)
@@ -187,6 +190,16 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
         xs.unshift(0)
         ys.unshift(0)
         c.note('The equilibrium table does not start at x = 0: the origin (0, 0) was added', 'equilibrium.points')
+      }
+      if (e.temperature !== undefined) {
+        const tTable = c.absTemp(c.q('temperature', e.temperature, 'equilibrium.temperature'), 'equilibrium.temperature')
+        if (Math.abs(tTable - colT) > TABLE_TEMPERATURE_TOLERANCE) {
+          c.warnings.push({
+            code: 'tableTemperature',
+            message: `The x–y table was measured at ${(tTable - 273.15).toFixed(1)} °C but the column runs at ${(colT - 273.15).toFixed(1)} °C: equilibrium depends strongly on temperature`,
+            path: 'equilibrium.temperature',
+          })
+        }
       }
       eq = { model: 'table', x: xs, y: ys }
       break

@@ -4,15 +4,39 @@
  *
  * A quantity is a bare number in the case unit of its kind (see QUANTITY_KINDS in
  * ../units.ts and data/examples/README.md) or { "value": v, "unit": "..." }.
- * This schema checks shape and types; units, signs and ranges are checked when the
- * engine normalises the case (with the same field paths).
+ * This schema checks shape, types and the range of each field with a rule in ./caseRules.ts
+ * (messages in the person's units and words, e.g. '-300 kmol/h: the gas flow must be positive');
+ * the engine checks again when it normalises the case (with the same field paths).
  */
 import { z } from 'zod'
-import { QUANTITY_KINDS, isUnitOf, type QuantityKind } from '../units.ts'
+import { QUANTITY_KINDS, isUnitOf, type QuantityInput, type QuantityKind } from '../units.ts'
+import { requiredText, ruleFor, ruleProblem } from './caseRules.ts'
+
+/** Add the range check of the field rule at `path` (see caseRules.ts) to a schema. */
+function ruled<T extends z.ZodType>(schema: T, path: string): T {
+  const rule = ruleFor(path)
+  if (!rule) throw new Error(`no field rule for ${path}`)
+  return schema.superRefine((v, ctx) => {
+    const problem = ruleProblem(rule, v as QuantityInput)
+    if (problem) ctx.addIssue({ code: 'custom', message: problem, params: { rule: path } })
+  }) as unknown as T
+}
+
+/** A plain number (fraction, factor) with the rule of its field. */
+function num(path: string) {
+  const rule = ruleFor(path)
+  return ruled(z.number({ error: (iss) => (iss.input === undefined ? requiredText(rule) : `not a number: enter ${rule?.noun ?? 'a number'}`) }), path)
+}
+
+/** A quantity with the rule of its field. */
+function q(kind: QuantityKind, path: string) {
+  return ruled(quantity(kind, path), path)
+}
 
 /** A quantity of a given kind; the unit (when given) must be a unit of that kind. */
-export function quantity(kind: QuantityKind) {
+export function quantity(kind: QuantityKind, path?: string) {
   const info = QUANTITY_KINDS[kind]
+  const rule = path ? ruleFor(path) : undefined
   return z.union(
     [
     z.number(),
@@ -27,21 +51,21 @@ export function quantity(kind: QuantityKind) {
     {
       error: (iss) =>
         iss.input === undefined
-          ? 'required'
-          : `expected a number (in ${info.caseUnit}) or { "value": number, "unit": "${info.caseUnit}" }`,
+          ? requiredText(rule)
+          : typeof iss.input === 'number'
+            ? `not a number: enter ${rule?.noun ?? 'a number'}`
+            : `expected a number (in ${info.caseUnit}) or { "value": number, "unit": "${info.caseUnit}" }`,
     },
   )
 }
 
-const fraction = z.number()
-
 export const gasSchema = z
   .object({
-    flow: quantity('molarFlow'),
-    temperature: quantity('temperature'),
-    pressure: quantity('pressure'),
-    soluteMoleFraction: fraction,
-    carrierMolarMass: quantity('molarMass').optional(),
+    flow: q('molarFlow', 'gas.flow'),
+    temperature: q('temperature', 'gas.temperature'),
+    pressure: q('pressure', 'gas.pressure'),
+    soluteMoleFraction: num('gas.soluteMoleFraction'),
+    carrierMolarMass: q('molarMass', 'gas.carrierMolarMass').optional(),
     carrier: z.string().min(1).optional(),
     viscosity: quantity('gasViscosity').optional(),
   })
@@ -57,7 +81,7 @@ export const soluteSchema = z.union([
   z
     .object({
       name: z.string().min(1).optional(),
-      molarMass: quantity('molarMass').optional(),
+      molarMass: q('molarMass', 'solute.molarMass').optional(),
     })
     .strict(),
 ], nameOrObject('solute'))
@@ -67,12 +91,12 @@ export const solventSchema = z.union([
   z
     .object({
       name: z.string().min(1).optional(),
-      temperature: quantity('temperature').optional(),
-      soluteMoleFraction: fraction.optional(),
-      molarMass: quantity('molarMass').optional(),
-      density: quantity('density').optional(),
-      viscosity: quantity('viscosity').optional(),
-      surfaceTension: quantity('surfaceTension').optional(),
+      temperature: q('temperature', 'solvent.temperature').optional(),
+      soluteMoleFraction: num('solvent.soluteMoleFraction').optional(),
+      molarMass: q('molarMass', 'solvent.molarMass').optional(),
+      density: q('density', 'solvent.density').optional(),
+      viscosity: q('viscosity', 'solvent.viscosity').optional(),
+      surfaceTension: q('surfaceTension', 'solvent.surfaceTension').optional(),
     })
     .strict(),
 ], nameOrObject('solvent'))
@@ -88,27 +112,29 @@ export const antoineSchema = z
   .strict()
 
 export const equilibriumSchema = z.discriminatedUnion('model', [
-  z.object({ model: z.literal('constantK'), K: z.number() }).strict(),
+  z.object({ model: z.literal('constantK'), K: num('equilibrium.K') }).strict(),
   z
     .object({
       model: z.literal('henry'),
-      Hcp: quantity('henrySolubility').optional(),
-      B: quantity('inverseTemperatureSlope').optional(),
+      Hcp: q('henrySolubility', 'equilibrium.Hcp').optional(),
+      B: q('inverseTemperatureSlope', 'equilibrium.B').optional(),
     })
     .strict(),
   z
     .object({
       model: z.literal('modifiedRaoult'),
-      gammaInf: z.number().optional(),
+      gammaInf: num('equilibrium.gammaInf').optional(),
       activityModel: z.enum(['constant', 'margules']).optional(),
       antoine: antoineSchema.optional(),
-      vapourPressure: quantity('pressure').optional(),
+      vapourPressure: q('pressure', 'equilibrium.vapourPressure').optional(),
     })
     .strict(),
   z
     .object({
       model: z.literal('table'),
-      points: z.array(z.tuple([z.number(), z.number()])).min(2),
+      points: z.array(z.tuple([num('equilibrium.points.*.0'), num('equilibrium.points.*.1')])).min(2),
+      /** Temperature the points were measured at (the engine warns when the column's differs). */
+      temperature: q('temperature', 'equilibrium.temperature').optional(),
     })
     .strict(),
 ])
@@ -119,40 +145,40 @@ export const spacingRuleSchema = z
 
 export const traySchema = z
   .object({
-    holeDiameter: quantity('smallLength').optional(),
-    holePitch: quantity('smallLength').optional(),
-    thickness: quantity('smallLength').optional(),
-    spacing: z.union([z.literal('auto'), quantity('length')]).optional(),
-    floodFraction: fraction.optional(),
-    foamingFactor: fraction.optional(),
-    weirHeight: quantity('smallLength').optional(),
-    downcomerClearance: quantity('smallLength').optional(),
-    turndownFraction: fraction.optional(),
+    holeDiameter: q('smallLength', 'tray.holeDiameter').optional(),
+    holePitch: q('smallLength', 'tray.holePitch').optional(),
+    thickness: q('smallLength', 'tray.thickness').optional(),
+    spacing: z.union([z.literal('auto'), q('length', 'tray.spacing')]).optional(),
+    floodFraction: num('tray.floodFraction').optional(),
+    foamingFactor: num('tray.foamingFactor').optional(),
+    weirHeight: q('smallLength', 'tray.weirHeight').optional(),
+    downcomerClearance: q('smallLength', 'tray.downcomerClearance').optional(),
+    turndownFraction: num('tray.turndownFraction').optional(),
     spacingRule: spacingRuleSchema.optional(),
   })
   .strict()
 
 export const efficiencySchema = z.discriminatedUnion('model', [
   z.object({ model: z.literal('oconnell') }).strict(),
-  z.object({ model: z.literal('fixed'), value: z.number() }).strict(),
+  z.object({ model: z.literal('fixed'), value: num('efficiency.value') }).strict(),
 ])
 
 export const columnSchema = z
   .object({
-    temperature: quantity('temperature').optional(),
-    diameterStep: quantity('length').optional(),
-    topAllowance: quantity('length').optional(),
-    bottomAllowance: quantity('length').optional(),
+    temperature: q('temperature', 'column.temperature').optional(),
+    diameterStep: q('length', 'column.diameterStep').optional(),
+    topAllowance: q('length', 'column.topAllowance').optional(),
+    bottomAllowance: q('length', 'column.bottomAllowance').optional(),
   })
   .strict()
 
 export const vesselSchema = z
   .object({
-    designPressure: quantity('pressureGauge').optional(),
-    allowableStress: quantity('stress').optional(),
-    jointEfficiency: z.number().optional(),
-    corrosionAllowance: quantity('smallLength').optional(),
-    materialDensity: quantity('density').optional(),
+    designPressure: q('pressureGauge', 'vessel.designPressure').optional(),
+    allowableStress: q('stress', 'vessel.allowableStress').optional(),
+    jointEfficiency: num('vessel.jointEfficiency').optional(),
+    corrosionAllowance: q('smallLength', 'vessel.corrosionAllowance').optional(),
+    materialDensity: q('density', 'vessel.materialDensity').optional(),
     minimumThickness: z
       .array(z.object({ maxDiameter: quantity('length'), thickness: quantity('smallLength') }).strict())
       .min(1)
@@ -171,8 +197,8 @@ export const caseSchema = z.looseObject({
   solute: soluteSchema,
   solvent: solventSchema,
   equilibrium: equilibriumSchema,
-  recovery: fraction,
-  solventFactor: fraction,
+  recovery: num('recovery'),
+  solventFactor: num('solventFactor'),
   tray: traySchema.optional(),
   efficiency: efficiencySchema.optional(),
   method: z.enum(['auto', 'kremser', 'stageByStage']).optional(),

@@ -32,6 +32,13 @@ export class ApiError extends Error {
   }
 }
 
+let unitSystem: string | null = null
+
+/** The person's unit system, sent as X-Unit-System so that the server's messages speak it. */
+export function setUnitSystemHeader(system: string | null): void {
+  unitSystem = system
+}
+
 type Handler = () => void
 let onUnauthorized: Handler | null = null
 
@@ -90,7 +97,7 @@ export async function request<T>(method: string, path: string, opts: RequestOpti
   const init: RequestInit = {
     method,
     credentials: 'same-origin',
-    headers: { Accept: 'application/json' },
+    headers: { Accept: 'application/json', ...(unitSystem ? { 'X-Unit-System': unitSystem } : {}) },
     signal: opts.signal,
   }
   if (opts.body !== undefined) {

@@ -1,20 +1,37 @@
 import { computed, ref, shallowRef, watch } from 'vue'
 import { studiesApi } from '@/api/studies.ts'
 import { designsApi } from '@/api/designs.ts'
-import { ApiError, fieldErrors, issueErrors } from '@/api/http.ts'
+import { ApiError, fieldErrors } from '@/api/http.ts'
 import { designOf, isOptimizeResult, type CaseInput, type ComponentEntry, type RunView, type StudyView } from '@/api/types.ts'
 import type { AsyncStatus } from './useAsync.ts'
 import { searchSpecSchema } from '@shared/schemas/search.ts'
+import { ruleFor, setUnitSystemSource } from '@shared/schemas/caseRules.ts'
+import { useSessionStore } from '@/stores/session.ts'
 
 function clone<T>(v: T): T {
   return JSON.parse(JSON.stringify(v)) as T
 }
 
-/** Field errors from a client-side check of the case with the shared schema (loaded on demand). */
-async function validateCase(c: CaseInput): Promise<Record<string, string[]>> {
-  const { caseSchema } = await import('@shared/schemas/case.ts')
-  const parsed = caseSchema.safeParse(c)
-  return parsed.success ? {} : issueErrors(parsed.error.issues)
+type CaseModule = typeof import('@shared/schemas/case.ts')
+let caseModule: Promise<CaseModule> | null = null
+
+/** One input that needs attention: where it is, what the form calls it and what is wrong. */
+export interface InputProblem {
+  path: string
+  label: string
+  message: string
+}
+
+/** The form's name for a field path (the shared field rules), else the path in words. */
+export function fieldLabel(path: string): string {
+  if (path === 'name') return 'Study name'
+  const rule = ruleFor(path)
+  if (rule) {
+    const point = /^equilibrium\.points\.(\d+)\.([01])$/.exec(path)
+    return point ? `${point[2] === '0' ? 'x' : 'y'}${Number(point[1]) + 1} of the x–y table` : rule.label
+  }
+  if (path.startsWith('search')) return `Search limits: ${path.slice(7) || 'all'}`
+  return path.replace(/\./g, ' › ')
 }
 
 /**
@@ -35,7 +52,45 @@ export function useStudy(siteId: () => number, studyId: () => number) {
   const running = ref<'design' | 'optimize' | null>(null)
   const actionError = shallowRef<unknown>(null)
   const conflict = ref(false)
-  const errors = ref<Record<string, string[]>>({})
+  /** Field messages from the server's last answer (cleared when the inputs change). */
+  const serverErrors = ref<Record<string, string[]>>({})
+  const caseMod = shallowRef<CaseModule | null>(null)
+  const session = useSessionStore()
+  // messages of the shared rules name values in the person's unit system
+  setUnitSystemSource(() => session.unitSystem)
+  caseModule ??= import('@shared/schemas/case.ts')
+  void caseModule.then((m) => (caseMod.value = m))
+
+  /** The check of the shared rules as the person types: every problem at once, in their units. */
+  const liveErrors = computed<Record<string, string[]>>(() => {
+    const out: Record<string, string[]> = {}
+    void session.unitSystem // messages follow the unit switch
+    const m = caseMod.value
+    if (!m || !draft.value) return out
+    const parsed = m.caseSchema.safeParse(draft.value)
+    if (!parsed.success) for (const i of parsed.error.issues) (out[i.path.map(String).join('.')] ??= []).push(i.message)
+    if (!name.value.trim()) out.name = ['required: give the study a name']
+    const searchCheck = searchSpecSchema.safeParse(search.value)
+    if (!searchCheck.success) for (const i of searchCheck.error.issues) (out[['search', ...i.path.map(String)].join('.')] ??= []).push(i.message)
+    return out
+  })
+  /** Every field message: the live check, then what the server said. */
+  const errors = computed<Record<string, string[]>>(() => {
+    const out: Record<string, string[]> = {}
+    for (const src of [liveErrors.value, serverErrors.value]) {
+      for (const [k, v] of Object.entries(src)) out[k] = [...new Set([...(out[k] ?? []), ...v])]
+    }
+    return out
+  })
+  const problems = computed<InputProblem[]>(() =>
+    Object.entries(errors.value).flatMap(([path, messages]) => messages.map((message) => ({ path, label: fieldLabel(path), message }))),
+  )
+  /** Why Save and Run are off, or '' when they are not. */
+  const blockedReason = computed(() => {
+    const n = Object.keys(liveErrors.value).length
+    if (n === 0) return ''
+    return `${n === 1 ? 'One input needs' : `${n} inputs need`} attention before the study can be saved or run.`
+  })
   const designRun = shallowRef<RunView | null>(null)
   const optimizeRun = shallowRef<RunView | null>(null)
   const library = ref<ComponentEntry[]>([])
@@ -45,6 +100,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
     [draft, name, description, search],
     () => {
       if (!loadingDraft) dirty.value = true
+      serverErrors.value = {}
     },
     { deep: true },
   )
@@ -81,8 +137,9 @@ export function useStudy(siteId: () => number, studyId: () => number) {
     status.value = 'loading'
     error.value = null
     conflict.value = false
-    errors.value = {}
+    serverErrors.value = {}
     try {
+      caseMod.value = await (caseModule ??= import('@shared/schemas/case.ts'))
       const s = await studiesApi.get(siteId(), studyId())
       adopt(s)
       await loadRuns(s)
@@ -110,12 +167,9 @@ export function useStudy(siteId: () => number, studyId: () => number) {
     if (!s || !draft.value) return false
     actionError.value = null
     conflict.value = false
-    errors.value = await validateCase(draft.value)
-    if (!name.value.trim()) errors.value.name = ['Give the study a name.']
-    const searchCheck = searchSpecSchema.safeParse(search.value)
-    if (!searchCheck.success) Object.assign(errors.value, issueErrors(searchCheck.error.issues, ['search']))
-    if (Object.keys(errors.value).length > 0) {
-      actionError.value = new ApiError(400, 'validation', 'Some inputs need attention (marked on the fields).')
+    if (!caseMod.value) caseMod.value = await (caseModule ??= import('@shared/schemas/case.ts'))
+    if (blockedReason.value) {
+      actionError.value = new ApiError(400, 'validation', blockedReason.value)
       return false
     }
     saving.value = true
@@ -132,7 +186,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
       return true
     } catch (err) {
       if (err instanceof ApiError && err.status === 409) conflict.value = true
-      errors.value = fieldErrors(err, ['inputs.'])
+      serverErrors.value = fieldErrors(err, ['inputs.'])
       actionError.value = err
       return false
     } finally {
@@ -143,10 +197,14 @@ export function useStudy(siteId: () => number, studyId: () => number) {
   async function run(kind: 'design' | 'optimize'): Promise<boolean> {
     const s = study.value
     if (!s) return false
+    if (blockedReason.value) {
+      actionError.value = new ApiError(400, 'validation', blockedReason.value)
+      return false
+    }
     if (dirty.value && !(await save())) return false
     running.value = kind
     actionError.value = null
-    errors.value = {}
+    serverErrors.value = {}
     try {
       const r = await studiesApi.run(siteId(), s.id, kind)
       if (kind === 'design') designRun.value = r
@@ -155,7 +213,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
       adopt(fresh, true)
       return true
     } catch (err) {
-      errors.value = fieldErrors(err, ['inputs.'])
+      serverErrors.value = fieldErrors(err, ['inputs.'])
       actionError.value = err
       return false
     } finally {
@@ -192,7 +250,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
   })
 
   return {
-    study, status, error, draft, name, description, search, dirty, saving, running, actionError, conflict, errors, library,
+    study, status, error, draft, name, description, search, dirty, saving, running, actionError, conflict, errors, problems, blockedReason, library,
     designRun, optimizeRun, currentRun, design, optimisation, cautions, can, canEdit,
     load, save, run, pin, removeOption,
   }

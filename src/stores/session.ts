@@ -1,5 +1,5 @@
 import { defineStore } from 'pinia'
-import { computed, ref } from 'vue'
+import { computed, ref, watch } from 'vue'
 import type { UserView } from '@shared/schemas/identity.ts'
 import type { Role, UnitSystem } from '@shared/schemas/common.ts'
 // The identity API (with the schema library) loads on first use, not with the first screen.
@@ -9,7 +9,7 @@ const authApi = {
   logout: async () => (await import('@/api/identity.ts')).authApi.logout(),
   updateMe: async (patch: { unitSystem: UnitSystem }) => (await import('@/api/identity.ts')).authApi.updateMe(patch),
 }
-import { ApiError } from '@/api/http.ts'
+import { ApiError, setUnitSystemHeader } from '@/api/http.ts'
 
 /** The signed-in person. The session itself lives in an httpOnly cookie, never in the page. */
 export const useSessionStore = defineStore('session', () => {
@@ -20,6 +20,7 @@ export const useSessionStore = defineStore('session', () => {
   const signedIn = computed(() => user.value !== null)
   const isSystemAdmin = computed(() => user.value?.isAdmin === true)
   const unitSystem = computed<UnitSystem>(() => user.value?.unitSystem ?? 'SI')
+  watch(unitSystem, (s) => setUnitSystemHeader(s), { immediate: true })
 
   function roleAt(siteId: number | null | undefined): Role | null {
     if (siteId == null || !user.value) return null

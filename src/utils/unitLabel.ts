@@ -1,10 +1,2 @@
-/** Typeset a units-library unit for people: m^3/h -> m³/h, degC -> °C, kg/m^3 -> kg/m³. */
-export function prettyUnit(unit: string): string {
-  return unit
-    .replace(/degC/g, '°C')
-    .replace(/degF/g, '°F')
-    .replace(/\^2/g, '²')
-    .replace(/\^3/g, '³')
-    .replace(/lbm\b/g, 'lb')
-    .replace(/ s\b/g, '·s')
-}
+/** Typeset a units-library unit for people (the one rule lives in shared/unitText.ts). */
+export { prettyUnit } from '@shared/unitText.ts'

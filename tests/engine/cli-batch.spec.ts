@@ -19,7 +19,8 @@ function run(args: string[], env: Record<string, string> = {}) {
 
 const good = JSON.parse(readFileSync('data/examples/design.json', 'utf8')) as Record<string, unknown>
 const badUnit = { ...good, gas: { ...(good.gas as object), flow: { value: 3, unit: 'bushel/h' } } }
-const infeasible = { ...good, solventFactor: 0.5 }
+// lean solvent already richer than the gas leaving at the target: valid input, no design
+const infeasible = { ...good, solvent: { ...(typeof good.solvent === 'string' ? { name: good.solvent } : (good.solvent as object)), soluteMoleFraction: 0.05 } }
 
 type Slot = { summary?: { recovery: number; totalAnnualCost?: number }; error?: { code: string; message: string; issues: { path: string; message: string }[] } }
 

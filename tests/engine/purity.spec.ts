@@ -31,9 +31,10 @@ describe('engine purity', () => {
       }
     }
   })
-  it('shared/units.ts imports nothing (mathjs is loaded only for a unit outside its table); the case schema only zod and the units', () => {
+  it('shared/units.ts imports nothing (mathjs is loaded only for a unit outside its table); the case schema only zod, the units and its field rules', () => {
     expect(imports('shared/units.ts')).toEqual([])
     expect(imports('shared/units-mathjs.ts').sort()).toEqual(['./units.ts', 'mathjs'])
-    expect(imports('shared/schemas/case.ts').sort()).toEqual(['../units.ts', 'zod'])
+    expect(imports('shared/schemas/case.ts').sort()).toEqual(['../units.ts', './caseRules.ts', 'zod'])
+    expect(imports('shared/schemas/caseRules.ts')).toEqual(['../units.ts'])
   })
 })

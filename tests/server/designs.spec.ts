@@ -64,8 +64,9 @@ describe('POST /designs/evaluate', () => {
   it('a batch keeps going: each refused case gets its own error slot, the others their design', async () => {
     const neg = structuredClone(ethanolCase) as { gas: Record<string, unknown> }
     neg.gas.flow = -5
-    const low = { ...ethanolCase, solventFactor: 0.5 }
-    const batch = await api().post('/api/v1/designs/evaluate').set(await auth()).send({ cases: [ethanolCase, neg, low, { ...ethanolCase, recovery: 0.95 }] })
+    // lean solvent already richer than the gas leaving at the target: valid input, no design
+    const loaded = { ...ethanolCase, solvent: { name: 'water', soluteMoleFraction: 0.05 } }
+    const batch = await api().post('/api/v1/designs/evaluate').set(await auth()).send({ cases: [ethanolCase, neg, loaded, { ...ethanolCase, recovery: 0.95 }] })
     expect(batch.status).toBe(200)
     expect(batch.body).toHaveLength(4)
     expect(batch.body[0].summary.recovery).toBeCloseTo(0.985, 6)
@@ -73,7 +74,7 @@ describe('POST /designs/evaluate', () => {
     expect(batch.body[1].error.issues[0].path).toBe('body.cases.1.gas.flow')
     expect(typeof batch.body[1].error.issues[0].message).toBe('string')
     expect(batch.body[2].error.code).toBe('infeasible_design')
-    expect(batch.body[2].error.issues[0].path).toBe('body.cases.2.solventFactor')
+    expect(batch.body[2].error.issues[0].path).toBe('body.cases.2.solvent.soluteMoleFraction')
     expect(batch.body[3].summary.recovery).toBeCloseTo(0.95, 6)
     expect(batch.headers['x-cases-refused']).toBe('2')
   })

@@ -28,6 +28,7 @@ export interface Affine {
 // Exact factors (NIST SP 811, 2008, appendix B): ft 0.3048 m; in 0.0254 m; lb 0.45359237 kg;
 // US gallon 231 in^3 = 3.785411784e-3 m^3; psi = lbf/in^2 with g_n = 9.80665 m/s^2;
 // standard atmosphere 101 325 Pa; torr = atm/760; conventional mmHg 133.322387415 Pa;
+// horsepower = 550 ft lbf/s = 745.699 87 W; kWh = 3.6 MJ; litre = 1e-3 m^3;
 // conventional inch of water 25.4 mm x 1000 kg/m^3 x g_n; degF = K x 9/5 - 459.67.
 const FT = 0.3048
 const IN = 0.0254
@@ -35,6 +36,8 @@ const LB = 0.45359237
 const GAL = 231 * IN ** 3
 const PSI = (LB * 9.80665) / IN ** 2
 const H = 3600
+// horsepower (mechanical) = 550 ft lbf/s
+const HP = 550 * FT * LB * 9.80665
 
 /** Units by SI unit: a number is a scale, a pair is [scale, offset]. */
 const UNIT_TABLE: Record<string, Record<string, number | [number, number]>> = {
@@ -52,6 +55,9 @@ const UNIT_TABLE: Record<string, Record<string, number | [number, number]>> = {
   'kg/mol': { 'kg/mol': 1, 'kg/kmol': 1e-3, 'g/mol': 1e-3, 'lbm/lbmol': 1e-3, 'lb/lbmol': 1e-3 },
   kg: { kg: 1, g: 1e-3, t: 1000, tonne: 1000, lbm: LB, lb: LB },
   s: { s: 1, min: 60, h: H, day: 86400 },
+  'm^3': { 'm^3': 1, L: 1e-3, gal: GAL, 'ft^3': FT ** 3 },
+  W: { W: 1, kW: 1000, MW: 1e6, hp: HP },
+  J: { J: 1, kJ: 1000, MJ: 1e6, kWh: 3.6e6 },
   'mol/(m^3 Pa)': { 'mol/(m^3 Pa)': 1 },
 }
 
@@ -214,6 +220,9 @@ export const QUANTITY_KINDS = {
   time: { si: 's', caseUnit: 's', siDisplay: 's', us: 's', label: 'Time' },
   henrySolubility: { si: 'mol/(m^3 Pa)', caseUnit: 'mol/(m^3 Pa)', siDisplay: 'mol/(m^3 Pa)', us: 'mol/(m^3 Pa)', label: 'Henry solubility constant' },
   inverseTemperatureSlope: { si: 'K', caseUnit: 'K', siDisplay: 'K', us: 'K', label: 'd ln H / d(1/T)' },
+  volume: { si: 'm^3', caseUnit: 'm^3', siDisplay: 'm^3', us: 'gal', label: 'Volume' },
+  power: { si: 'W', caseUnit: 'kW', siDisplay: 'kW', us: 'hp', label: 'Power' },
+  energy: { si: 'J', caseUnit: 'kWh', siDisplay: 'kWh', us: 'kWh', label: 'Energy' },
 } as const satisfies Record<string, QuantityKindInfo>
 
 export type QuantityKind = keyof typeof QUANTITY_KINDS
@@ -373,5 +382,40 @@ export function isUnitOf(kind: QuantityKind, unit: string): boolean {
   }
 }
 
+/**
+ * Prices per amount of a quantity (currency per kWh, per m³, per kg...). A price is stored per
+ * one `stored` unit; it is shown per `count` display units of the person's system, e.g. a
+ * solvent price stored per m³ is shown per 1000 gal in US customary units.
+ */
+export interface PriceKindInfo {
+  /** Quantity kind of the amount priced. */
+  kind: QuantityKind
+  /** Unit of one stored price: currency per one of these. */
+  stored: string
+  SI: { count: number; unit: string }
+  US: { count: number; unit: string }
+}
+
+export const PRICE_KINDS = {
+  pricePerEnergy: { kind: 'energy', stored: 'kWh', SI: { count: 1, unit: 'kWh' }, US: { count: 1, unit: 'kWh' } },
+  pricePerVolume: { kind: 'volume', stored: 'm^3', SI: { count: 1, unit: 'm^3' }, US: { count: 1000, unit: 'gal' } },
+  pricePerMass: { kind: 'mass', stored: 'kg', SI: { count: 1, unit: 'kg' }, US: { count: 1, unit: 'lb' } },
+  pricePerBulkMass: { kind: 'mass', stored: 't', SI: { count: 1, unit: 't' }, US: { count: 1000, unit: 'lb' } },
+} as const satisfies Record<string, PriceKindInfo>
+
+export type PriceKind = keyof typeof PRICE_KINDS
+
+/** How many currency units per displayed basis one currency unit per stored basis is worth. */
+export function priceScale(kind: PriceKind, system: 'SI' | 'US'): number {
+  const info: PriceKindInfo = PRICE_KINDS[kind]
+  const basis = info[system]
+  // price per basis = price per stored unit x (stored units in one basis)
+  return convert(basis.count, basis.unit, info.stored)
+}
+
+/** The display basis of a price, e.g. { count: 1000, unit: 'gal' }. */
+export function priceBasis(kind: PriceKind, system: 'SI' | 'US'): { count: number; unit: string } {
+  return PRICE_KINDS[kind][system]
+}
 
 export { prettyUnit } from './unitText.ts'

@@ -2,7 +2,8 @@ import type { Router } from 'express'
 import { defineRoutes, parse, ANY_ROLE } from './define.ts'
 import * as svc from '../services/allocation.ts'
 import { idParam } from '../../shared/schemas/common.ts'
-import { allocationBody } from '../../shared/schemas/allocation.ts'
+import { z } from 'zod'
+import { allocationAbsorberSchema, allocationBody } from '../../shared/schemas/allocation.ts'
 
 export function allocationRoutes(router: Router): Router {
   return defineRoutes(router, [
@@ -12,6 +13,12 @@ export function allocationRoutes(router: Router): Router {
       status: 200,
       doc: { body: allocationBody },
       handler: (req) => svc.solve(req.site!.id, parse(allocationBody, req.body), req.user!, req.requestId),
+    },
+    {
+      method: 'get', path: '/sites/:siteId/allocations/absorbers', access: { kind: 'site', roles: ANY_ROLE },
+      summary: 'The absorbers an allocation can include, with their design solvent flows',
+      doc: { response: z.array(allocationAbsorberSchema) },
+      handler: (req) => svc.absorbers(req.site!.id),
     },
     {
       method: 'get', path: '/sites/:siteId/allocations', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Saved allocations',

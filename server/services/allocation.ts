@@ -52,12 +52,24 @@ export async function solve(siteId: number, body: AllocationBody, actor: AuthUse
   }
   const result = { ...allocateSolvent(units, body.supplyLimit, body.objective), currency: basis.general.currency, costBasisVersion: basisRow.version }
   let id: number | null = null
-  if (body.save) {
+  if (body.save && (result.feasible || body.saveInfeasible)) {
     const row = await SolventAllocation.create({ siteId, name: body.name || `Allocation ${new Date().toISOString().slice(0, 10)}`, inputs: body, result, createdBy: actor.id })
     id = row.id
     await audit({ userId: actor.id, siteId, action: 'save_allocation', entity: 'solvent_allocation', entityId: row.id, after: { supplyLimit: body.supplyLimit, units: body.units.length }, requestId })
   }
-  return { id, ...result }
+  return { id, saved: id !== null, ...result }
+}
+
+/** The absorbers of a site (studies not archived) with the design solvent flow each stands for, m³/h. */
+export async function absorbers(siteId: number) {
+  const studies = await Study.findAll({ where: { siteId }, order: [['name', 'ASC']] })
+  const out = []
+  for (const s of studies) {
+    if (s.status === 'archived') continue
+    const d = await designOf(s)
+    out.push({ studyId: s.id, name: s.name, status: s.status, designFlow: d && Number.isFinite(d.solventVolumetricFlow) ? d.solventVolumetricFlow : null })
+  }
+  return out
 }
 
 export async function listSaved(siteId: number) {

@@ -17,6 +17,8 @@ export const allocationBody = z
       .min(1, 'choose at least one absorber')
       .max(20),
     save: z.boolean().default(false),
+    /** Save also a result with no feasible split (off: an infeasible result is only shown). */
+    saveInfeasible: z.boolean().default(false),
   })
   .superRefine((b, ctx) => {
     const seen = new Set<number>()
@@ -29,3 +31,13 @@ export const allocationBody = z
     })
   })
 export type AllocationBody = z.infer<typeof allocationBody>
+
+/** An absorber the allocation can include: a study of the site with the design solvent flow it stands for. */
+export const allocationAbsorberSchema = z.object({
+  studyId: z.number().int(),
+  name: z.string(),
+  status: z.string(),
+  /** Design solvent flow, m³/h; null when the study has no run yet. */
+  designFlow: z.number().nullable(),
+})
+export type AllocationAbsorber = z.infer<typeof allocationAbsorberSchema>

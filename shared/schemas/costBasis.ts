@@ -11,6 +11,7 @@
  * The client renders grouped forms from `costBasisFieldMeta` (field path -> label, unit, help).
  */
 import { z } from 'zod'
+import type { PriceKind, QuantityKind } from '../units.ts'
 
 const pos = () => z.number().positive()
 const nonneg = () => z.number().nonnegative()
@@ -283,3 +284,23 @@ export const costBasisGroups: { key: string; label: string; prefix: string }[] =
   { key: 'correlations.motor', label: 'Pump motor', prefix: 'correlations.motor' },
   { key: 'correlations.blower', label: 'Blower', prefix: 'correlations.blower' },
 ]
+
+/**
+ * The physical kind of the cost-basis fields that carry a unit, so screens and reports show them
+ * in the person's unit system (stored values stay SI: m, Pa, kg/m³; prices per kWh, m³, kg).
+ * Quantity kinds and price kinds are those of shared/units.ts.
+ */
+export const costBasisFieldKinds: Record<string, { quantity?: QuantityKind; price?: PriceKind }> = {
+  'utilities.electricityPrice': { price: 'pricePerEnergy' },
+  'utilities.solventCost': { price: 'pricePerVolume' },
+  'utilities.productValue': { price: 'pricePerMass' },
+  'utilities.emissionCharge': { price: 'pricePerMass' },
+  'drives.pumpHeadAllowance': { quantity: 'length' },
+  'drives.blowerPressureAllowance': { quantity: 'pressureDrop' },
+  'materials.shellDensity': { quantity: 'density' },
+  'materials.allowableStress': { quantity: 'stress' },
+  'materials.corrosionAllowance': { quantity: 'smallLength' },
+  'materials.minimumDesignPressure': { quantity: 'pressureGauge' },
+  'materials.minimumThickness.maxDiameter': { quantity: 'length' },
+  'materials.minimumThickness.thickness': { quantity: 'smallLength' },
+}

@@ -53,3 +53,12 @@ export const searchSpecFieldMeta: Record<string, { label: string; unit: string; 
   sensitivity: { label: 'Compute sensitivity', unit: '-', help: 'Tornado of the optimum TAC to each cost-basis item.' },
   sensitivityFraction: { label: 'Sensitivity step', unit: '-', help: 'Relative change of each item, e.g. 0.2 for ±20 %.' },
 }
+
+/**
+ * The tray spacings offered when none are set, per unit system [m]: 450–900 mm in SI and the
+ * whole-inch spacings of US practice, 18, 20, 24, 30 and 36 in (common practice, no source).
+ */
+export const defaultTraySpacings = {
+  SI: [0.45, 0.5, 0.6, 0.75, 0.9],
+  US: [18, 20, 24, 30, 36].map((inch) => Number((inch * 0.0254).toFixed(6))),
+} as const

@@ -1,10 +1,11 @@
 /** Site solvent allocation: split a limited solvent supply between absorbers (m³/h). */
-import type { AllocationBody } from '@shared/schemas/allocation.ts'
+import type { AllocationAbsorber, AllocationBody } from '@shared/schemas/allocation.ts'
 import { http } from './http.ts'
 
 export type AllocationObjective = 'minCost' | 'maxRecovered'
 
-export type AllocationRequest = Omit<AllocationBody, 'name' | 'objective' | 'save'> & { name?: string; objective?: AllocationObjective; save?: boolean }
+export type AllocationRequest = Omit<AllocationBody, 'name' | 'objective' | 'save' | 'saveInfeasible'> & { name?: string; objective?: AllocationObjective; save?: boolean; saveInfeasible?: boolean }
+export type { AllocationAbsorber }
 
 export interface AllocationUnitResult {
   id: number
@@ -20,6 +21,8 @@ export interface AllocationUnitResult {
 
 export interface AllocationResult {
   id?: number | null
+  /** Whether this answer was saved (an infeasible one is not, unless asked). */
+  saved?: boolean
   feasible: boolean
   objective: AllocationObjective
   supplyLimit: number
@@ -45,4 +48,5 @@ export interface SavedAllocation {
 export const allocationApi = {
   solve: (siteId: number, body: AllocationRequest): Promise<AllocationResult> => http.post(`/sites/${siteId}/allocations/solve`, body),
   list: (siteId: number): Promise<SavedAllocation[]> => http.get(`/sites/${siteId}/allocations`),
+  absorbers: (siteId: number): Promise<AllocationAbsorber[]> => http.get(`/sites/${siteId}/allocations/absorbers`),
 }

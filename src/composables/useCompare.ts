@@ -1,4 +1,5 @@
-import { ref, shallowRef } from 'vue'
+import { computed } from 'vue'
+import { useAsync } from './useAsync.ts'
 import { studiesApi } from '@/api/studies.ts'
 import type { OptionRow, RunView } from '@/api/types.ts'
 
@@ -25,40 +26,24 @@ export function parseOptionKeys(q: unknown): { studyId: number; optionId: number
 
 /** Load two to four pinned options (from one or several studies) with their full runs. */
 export function useCompare() {
-  const items = shallowRef<ComparedOption[]>([])
-  const status = ref<'idle' | 'loading' | 'success' | 'error'>('idle')
-  const error = shallowRef<unknown>(null)
-  let seq = 0
+  const req = useAsync(async (siteId: number, keys: { studyId: number; optionId: number; key: string }[]): Promise<ComparedOption[]> => {
+    if (keys.length === 0) return []
+    const studyIds = [...new Set(keys.map((k) => k.studyId))]
+    const studies = new Map(await Promise.all(studyIds.map(async (id) => [id, await studiesApi.get(siteId, id)] as const)))
+    const found = keys.flatMap((k) => {
+      const study = studies.get(k.studyId)
+      const option = study?.options.find((o) => o.id === k.optionId)
+      return study && option ? [{ k, study, option }] : []
+    })
+    return Promise.all(
+      found.map(async ({ k, study, option }) => ({ key: k.key, studyId: k.studyId, studyName: study.name, option, run: await studiesApi.getRun(siteId, k.studyId, option.runId) })),
+    )
+  })
+  const items = computed<ComparedOption[]>(() => req.data.value ?? [])
 
   async function load(siteId: number, keys: { studyId: number; optionId: number; key: string }[]): Promise<void> {
-    const mine = ++seq
-    if (keys.length === 0) {
-      items.value = []
-      status.value = 'idle'
-      return
-    }
-    status.value = 'loading'
-    error.value = null
-    try {
-      const studyIds = [...new Set(keys.map((k) => k.studyId))]
-      const studies = new Map(await Promise.all(studyIds.map(async (id) => [id, await studiesApi.get(siteId, id)] as const)))
-      const out: ComparedOption[] = []
-      for (const k of keys) {
-        const study = studies.get(k.studyId)
-        const option = study?.options.find((o) => o.id === k.optionId)
-        if (!study || !option) continue
-        const run = await studiesApi.getRun(siteId, k.studyId, option.runId)
-        out.push({ key: k.key, studyId: k.studyId, studyName: study.name, option, run })
-      }
-      if (mine !== seq) return
-      items.value = out
-      status.value = 'success'
-    } catch (err) {
-      if (mine !== seq) return
-      error.value = err
-      status.value = 'error'
-    }
+    await req.run(siteId, keys)
   }
 
-  return { items, status, error, load }
+  return { items, status: req.status, error: req.error, load }
 }

@@ -38,4 +38,42 @@ describe('site solvent allocation', () => {
     const rev = await api().post(`/api/v1/sites/${cobalt}/allocations/solve`).set({ Authorization: `Bearer ${await tokenFor('reviewer')}` }).send({ supplyLimit: 10, units: [{ studyId: foreign }] })
     expect(rev.status).toBe(403)
   })
+
+  it('lists each absorber with its design solvent flow before solving', async () => {
+    const { cobalt } = await siteIds()
+    const rev = { Authorization: `Bearer ${await tokenFor('reviewer')}` }
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const res = await api().get(`/api/v1/sites/${cobalt}/allocations/absorbers`).set(rev)
+    expect(res.status).toBe(200)
+    const list = res.body as { studyId: number; name: string; designFlow: number | null }[]
+    const withRun = list.filter((a) => a.designFlow !== null).slice(0, 2)
+    expect(withRun.length).toBe(2)
+    // the same design flows the solver uses (its default bounds are half and twice them)
+    const solved = await api().post(`/api/v1/sites/${cobalt}/allocations/solve`).set(eng).send({ supplyLimit: 1000, units: withRun.map((a) => ({ studyId: a.studyId })) })
+    expect(solved.status).toBe(200)
+    for (const a of withRun) {
+      const u = (solved.body.units as { id: number; designFlow: number; minFlow: number }[]).find((x) => x.id === a.studyId)
+      expect(u?.designFlow).toBeCloseTo(a.designFlow as number, 9)
+      expect(u?.minFlow).toBeCloseTo(0.5 * (a.designFlow as number), 9)
+    }
+  })
+
+  it('an infeasible supply is not saved unless asked', async () => {
+    const { cobalt } = await siteIds()
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const list = (await api().get(`/api/v1/sites/${cobalt}/allocations/absorbers`).set(eng)).body as { studyId: number; designFlow: number | null }[]
+    const two = list.filter((a) => a.designFlow !== null).slice(0, 2)
+    // a supply below the sum of the lowest flows (half the design flows) cannot be split
+    const tiny = two.reduce((x, a) => x + 0.5 * (a.designFlow as number), 0) * 0.5
+    const before = ((await api().get(`/api/v1/sites/${cobalt}/allocations`).set(eng)).body as unknown[]).length
+    const r = await api().post(`/api/v1/sites/${cobalt}/allocations/solve`).set(eng).send({ name: 'Too little', supplyLimit: tiny, units: two.map((a) => ({ studyId: a.studyId })), save: true })
+    expect(r.status).toBe(200)
+    expect(r.body.feasible).toBe(false)
+    expect(r.body.saved).toBe(false)
+    expect(r.body.id).toBeNull()
+    expect(((await api().get(`/api/v1/sites/${cobalt}/allocations`).set(eng)).body as unknown[]).length).toBe(before)
+    const forced = await api().post(`/api/v1/sites/${cobalt}/allocations/solve`).set(eng).send({ name: 'Too little, kept', supplyLimit: tiny, units: two.map((a) => ({ studyId: a.studyId })), save: true, saveInfeasible: true })
+    expect(forced.body.saved).toBe(true)
+    expect(forced.body.id).toBeGreaterThan(0)
+  })
 })

@@ -1,9 +1,9 @@
 import type { Router } from 'express'
 import { defineRoutes, parse, ANY_ROLE, SESSION_COOKIE, type RouteSpec } from './define.ts'
-import { signIn, signOut, userView } from '../services/auth.ts'
+import { signIn, signOut, userView, changePassword } from '../services/auth.ts'
 import * as people from '../services/people.ts'
 import { listAudit } from '../services/audit.ts'
-import { loginBody, createUserBody, createSiteBody, setMembershipBody, updateMeBody } from '../../shared/schemas/identity.ts'
+import { loginBody, changePasswordBody, createUserBody, createSiteBody, setMembershipBody, updateMeBody } from '../../shared/schemas/identity.ts'
 import { idParam, pagingQuery } from '../../shared/schemas/common.ts'
 import type { Config } from '../config.ts'
 import { openApiDocument } from '../openapi.ts'
@@ -64,6 +64,19 @@ export function identityRoutes(router: Router, cfg: Config): Router {
       status: 200,
       doc: { body: updateMeBody },
       handler: (req) => people.updateMe(req.user!.id, parse(updateMeBody, req.body)),
+    },
+    {
+      method: 'post', path: '/auth/password', access: { kind: 'signedIn' }, summary: 'Change own password (current and new; throttled like sign-in; other sessions end)',
+      status: 200,
+      doc: { body: changePasswordBody },
+      handler: async (req, res) => {
+        const body = parse(changePasswordBody, req.body)
+        const session = await changePassword(req.user!.id, body, req.requestId, { address: req.ip ?? req.socket.remoteAddress ?? 'unknown', limits })
+        res.cookie(SESSION_COOKIE, session.token, {
+          httpOnly: true, sameSite: 'strict', secure: isHttps(req, cfg), path: '/api', expires: new Date(session.expiresAt),
+        })
+        res.status(200).json(session)
+      },
     },
     {
       method: 'get', path: '/sites', access: { kind: 'signedIn' }, summary: 'Sites the person is a member of',

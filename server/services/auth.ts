@@ -2,7 +2,9 @@ import bcrypt from 'bcryptjs'
 import jwt from 'jsonwebtoken'
 import { config } from '../config.ts'
 import { User, Membership, Site } from '../db/models/index.ts'
-import { UnauthenticatedError } from '../errors.ts'
+import { UnauthenticatedError, ValidationError } from '../errors.ts'
+import { sequelize } from '../db/sequelize.ts'
+import { passwordProblem } from '../../shared/schemas/password.ts'
 import type { AuthUser } from '../types.d.ts'
 import type { UserView, SessionView } from '../../shared/schemas/identity.ts'
 import type { Role } from '../../shared/schemas/common.ts'
@@ -29,6 +31,11 @@ export async function signIn(email: string, password: string, requestId: string,
   user.lastSeenAt = new Date()
   await user.save()
   await audit({ userId: user.id, siteId: null, action: 'sign_in', entity: 'user', entityId: user.id, requestId })
+  return session(user)
+}
+
+/** A new session token for the person at their current token version. */
+async function session(user: User): Promise<SessionView> {
   const expiresAt = new Date(Date.now() + config.TOKEN_TTL_MINUTES * 60_000)
   const token = jwt.sign({ tv: user.tokenVersion } satisfies Omit<TokenClaims, 'sub'>, config.JWT_SECRET, {
     subject: String(user.id),
@@ -36,6 +43,38 @@ export async function signIn(email: string, password: string, requestId: string,
     algorithm: 'HS256',
   })
   return { user: await userView(user.id), token, expiresAt: expiresAt.toISOString() }
+}
+
+/**
+ * Change one's own password. The current password is checked under the sign-in throttle (a wrong
+ * one counts as a failed sign-in of the account and the address, in the database); the new one
+ * follows the one password rule, the e-mail address included. Every other session of the person
+ * ends; the answer is a fresh session for this one. A wrong current password is a 400 on the
+ * field (not a 401: the person stays signed in).
+ */
+export async function changePassword(
+  userId: number,
+  body: { currentPassword: string; newPassword: string },
+  requestId: string,
+  client: { address: string; limits: ThrottleLimits },
+): Promise<SessionView> {
+  const user = await User.findByPk(userId)
+  if (!user) throw new UnauthenticatedError()
+  await assertNotThrottled(user.email, client.address, client.limits)
+  if (!(await bcrypt.compare(body.currentPassword, user.passwordHash))) {
+    await recordFailure(user.email, client.address)
+    throw new ValidationError('The current password is not right.', [{ path: 'body.currentPassword', message: 'is not right' }])
+  }
+  const problem = passwordProblem(body.newPassword, user.email)
+  if (problem) throw new ValidationError(`The new password ${problem}.`, [{ path: 'body.newPassword', message: problem }])
+  const passwordHash = await bcrypt.hash(body.newPassword, 10)
+  await sequelize.transaction(async (transaction) => {
+    await User.update({ passwordHash, tokenVersion: user.tokenVersion + 1 }, { where: { id: user.id }, transaction })
+    await audit({ userId: user.id, siteId: null, action: 'change_password', entity: 'user', entityId: user.id, requestId }, transaction)
+  })
+  await clearAccount(user.email)
+  await user.reload()
+  return session(user)
 }
 
 /** Verify a token and load the person with their site roles; throws 401 on anything wrong. */

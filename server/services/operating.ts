@@ -126,15 +126,26 @@ async function requireApproved(siteId: number, studyId: number, transaction: imp
   if (s.status !== 'approved') throw new ConflictError('The operating log belongs to an approved study.', [{ path: 'study.status', message: `is ${s.status}` }])
 }
 
+/** The months of the list that the study has logged already (409 naming them). */
+function loggedAlready(months: string[], path: string): ConflictError {
+  const list = [...new Set(months)].sort()
+  const named = list.length === 1 ? `${list[0]} is logged already` : `${list.slice(0, -1).join(', ')} and ${list.at(-1)} are logged already`
+  return new ConflictError(`${named}; edit ${list.length === 1 ? 'that month' : 'those months'} instead.`, list.map((m) => ({ path, message: `${m} is logged already` })))
+}
+
 export async function createEntries(siteId: number, studyId: number, list: OperatingEntryBody[], actor: AuthUser, requestId: string) {
+  const months = list.map((e) => e.month)
   try {
     await sequelize.transaction(async (transaction) => {
       await requireApproved(siteId, studyId, transaction)
+      const taken = await OperatingEntry.findAll({ where: { studyId, month: months.map((m) => `${m}-01`) }, attributes: ['month'], transaction })
+      if (taken.length) throw loggedAlready(taken.map((t) => t.month.slice(0, 7)), 'body.month')
       const rows = await OperatingEntry.bulkCreate(list.map((e) => toRow(studyId, e, actor)), { transaction })
       await audit({ userId: actor.id, siteId, action: 'log_operation', entity: 'study', entityId: studyId, after: { months: list.map((e) => e.month), ids: rows.map((r) => r.id) }, requestId }, transaction)
     })
   } catch (e) {
-    if (e instanceof UniqueConstraintError) throw new ConflictError('A month is logged already; edit that entry instead.', [{ path: 'body.month', message: 'is logged already' }])
+    // two writers at once: the unique index answers; name the months asked for
+    if (e instanceof UniqueConstraintError) throw loggedAlready(months, 'body.month')
     throw e
   }
   return listEntries(siteId, studyId)
@@ -152,7 +163,7 @@ export async function updateEntry(siteId: number, studyId: number, entryId: numb
       await audit({ userId: actor.id, siteId, action: 'update_operation', entity: 'operating_entry', entityId: e.id, before, after: entryView(e), requestId }, transaction)
     })
   } catch (e) {
-    if (e instanceof UniqueConstraintError) throw new ConflictError('That month is logged already.', [{ path: 'body.entry.month', message: 'is logged already' }])
+    if (e instanceof UniqueConstraintError) throw loggedAlready([body.entry.month], 'body.entry.month')
     throw e
   }
   return listEntries(siteId, studyId)

@@ -43,6 +43,15 @@ const VERB: Record<ReviewKind, string> = {
   reopen: 'reopened',
 }
 
+/** What someone did to a study, as a sentence after their name (notifications). */
+const DID: Record<ReviewKind, string> = {
+  submit: 'submitted the study for review',
+  approve: 'approved the study',
+  return: 'returned the study with comments',
+  comment: 'commented on the study',
+  reopen: 'reopened the study',
+}
+
 async function mailsFor(study: Study, actor: AuthUser, kind: ReviewKind, body: string): Promise<Mail[]> {
   const site = await Site.findByPk(study.siteId as number)
   const people = await concerned(study, { reviewers: kind === 'submit' || kind === 'comment' })
@@ -157,24 +166,34 @@ export async function notifications(siteId: number, user: AuthUser) {
     order: [['id', 'ASC']],
     include: [{ model: User, as: 'user', attributes: ['name'] }],
   })
-  const runs = await Run.findAll({ where: { studyId: ids, createdBy: { [Op.ne]: user.id } }, attributes: ['studyId', 'kind', 'createdAt'] })
-  const out = []
+  const runs = await Run.findAll({ where: { studyId: ids, createdBy: { [Op.ne]: user.id } }, attributes: ['studyId', 'kind', 'createdAt', 'createdBy'] })
+  const runners = new Map(
+    (await User.findAll({ where: { id: [...new Set(runs.map((r) => r.createdBy).filter((x): x is number => x !== null))] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
+  )
+  const newestFirst = (a: { at: string }, b: { at: string }) => b.at.localeCompare(a.at)
+  interface Change { at: string; what: string; kind: ReviewKind | 'run' }
+  const out: { studyId: number; name: string; status: StudyStatus; lastSeenAt: string | null; changes: Change[] }[] = []
   for (const s of studies) {
     const seen = views.get(s.id) ?? null
     const newer = (d: Date) => seen === null || d > seen
     const ev = events.filter((e) => e.studyId === s.id && newer(e.createdAt))
     const rn = runs.filter((r) => r.studyId === s.id && newer(r.createdAt))
     if (!ev.length && !rn.length) continue
-    out.push({
-      studyId: s.id,
-      name: s.name,
-      status: s.status,
-      lastSeenAt: seen ? seen.toISOString() : null,
-      changes: [
-        ...ev.map((e) => ({ at: e.createdAt.toISOString(), what: `${(e as ReviewEvent & { user: User }).user.name} ${VERB[e.kind]} it`, kind: e.kind })),
-        ...rn.map((r) => ({ at: r.createdAt.toISOString(), what: `a new ${r.kind === 'optimize' ? 'optimisation' : 'design'} run`, kind: 'run' as const })),
-      ].sort((a, b) => a.at.localeCompare(b.at)),
-    })
+    // Review actions first (newest first), then new runs (newest first).
+    const actions = ev
+      .map((e) => ({ at: e.createdAt.toISOString(), what: `${(e as ReviewEvent & { user: User }).user.name} ${DID[e.kind]}`, kind: e.kind as ReviewKind | 'run' }))
+      .sort(newestFirst)
+    const newRuns = rn
+      .map((r) => {
+        const what = r.kind === 'optimize' ? 'an optimisation' : 'a design'
+        const who = r.createdBy !== null ? runners.get(r.createdBy) : undefined
+        return { at: r.createdAt.toISOString(), what: who ? `${who} ran ${what}` : `Someone ran ${what}`, kind: 'run' as const }
+      })
+      .sort(newestFirst)
+    out.push({ studyId: s.id, name: s.name, status: s.status, lastSeenAt: seen ? seen.toISOString() : null, changes: [...actions, ...newRuns] })
   }
+  // Studies with a review action come first, then the most recent change first.
+  const hasAction = (n: { changes: Change[] }) => (n.changes[0]?.kind !== 'run' ? 1 : 0)
+  out.sort((a, b) => hasAction(b) - hasAction(a) || (b.changes[0]?.at ?? '').localeCompare(a.changes[0]?.at ?? ''))
   return out
 }

@@ -59,6 +59,17 @@ export const updateMeBody = z.object({
   name: shortText(120).optional(),
 })
 
+/** Change one's own password: the current one, and a new one under the one password rule. */
+export const changePasswordBody = z
+  .object({
+    currentPassword: z.string().min(1, 'is required').max(200, 'must be at most 200 characters'),
+    newPassword: passwordSchema,
+  })
+  .superRefine((v, ctx) => {
+    if (v.newPassword === v.currentPassword) ctx.addIssue({ code: 'custom', message: 'must differ from the current password', path: ['newPassword'] })
+  })
+export type ChangePasswordBody = z.infer<typeof changePasswordBody>
+
 export const createSiteBody = z.object({
   name: shortText(160),
   code: z.string().trim().regex(/^[a-z0-9-]{2,40}$/, 'use 2-40 lower-case letters, digits or hyphens'),

@@ -19,6 +19,9 @@ export const authApi = {
     http.post('/auth/login', { email, password }, { schema: sessionSchema, quiet401: true }),
   logout: (): Promise<unknown> => http.post('/auth/logout', {}, { quiet401: true }),
   me: (): Promise<UserView> => http.get('/auth/me', { schema: userViewSchema, quiet401: true }),
+  /** Change one's own password; the answer is a fresh session (every other session ends). */
+  changePassword: (currentPassword: string, newPassword: string): Promise<SessionView> =>
+    http.post('/auth/password', { currentPassword, newPassword }, { schema: sessionSchema }),
   updateMe: (patch: { unitSystem?: UnitSystem; name?: string }): Promise<UserView> =>
     http.patch('/auth/me', patch, { schema: userViewSchema }),
 }

@@ -65,5 +65,8 @@ export const operatingApi = {
   list: (siteId: number, studyId: number): Promise<OperatingLog> => http.get(base(siteId, studyId)),
   create: (siteId: number, studyId: number, entry: OperatingEntryInput): Promise<OperatingLog> => http.post(base(siteId, studyId), entry),
   importCsv: (siteId: number, studyId: number, file: File): Promise<OperatingLog> => postFile(`${base(siteId, studyId)}/import`, file),
+  /** Correct a logged month; `lockVersion` is the version the person saw (409 when stale). */
+  update: (siteId: number, studyId: number, entryId: number, body: { entry: OperatingEntryInput; lockVersion: number }): Promise<OperatingLog> =>
+    http.put(`${base(siteId, studyId)}/${entryId}`, body),
   remove: (siteId: number, studyId: number, entryId: number): Promise<unknown> => http.del(`${base(siteId, studyId)}/${entryId}`),
 }

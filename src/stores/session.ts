@@ -8,6 +8,7 @@ const authApi = {
   login: async (email: string, password: string) => (await import('@/api/identity.ts')).authApi.login(email, password),
   logout: async () => (await import('@/api/identity.ts')).authApi.logout(),
   updateMe: async (patch: { unitSystem: UnitSystem }) => (await import('@/api/identity.ts')).authApi.updateMe(patch),
+  changePassword: async (current: string, next: string) => (await import('@/api/identity.ts')).authApi.changePassword(current, next),
 }
 import { ApiError, setUnitSystemHeader } from '@/api/http.ts'
 
@@ -65,6 +66,12 @@ export const useSessionStore = defineStore('session', () => {
     checked.value = true
   }
 
+  /** Change one's own password; this session goes on (the server ends every other one). */
+  async function changePassword(current: string, next: string): Promise<void> {
+    const session = await authApi.changePassword(current, next)
+    user.value = session.user
+  }
+
   async function setUnitSystem(system: UnitSystem): Promise<void> {
     if (!user.value) return
     const previous = user.value.unitSystem
@@ -77,5 +84,5 @@ export const useSessionStore = defineStore('session', () => {
     }
   }
 
-  return { user, checked, signedIn, isSystemAdmin, unitSystem, roleAt, canAdminister, ensureChecked, signIn, signOut, clear, setUnitSystem }
+  return { user, checked, signedIn, isSystemAdmin, unitSystem, roleAt, canAdminister, ensureChecked, signIn, signOut, clear, setUnitSystem, changePassword }
 })

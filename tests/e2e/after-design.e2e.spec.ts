@@ -135,7 +135,7 @@ describe('review and sign-off', () => {
     await signInAs(p, 'reviewer')
     await p.getByTestId('notifications').click()
     await p.getByTestId(`notification-${st.id}`).waitFor()
-    await expect(p.getByTestId(`notification-${st.id}`).innerText()).resolves.toMatch(/submitted for review/)
+    await expect(p.getByTestId(`notification-${st.id}`).innerText()).resolves.toMatch(/submitted the study for review/)
     await shot(p, 'notifications')
     await p.getByTestId(`notification-${st.id}`).click()
     await p.waitForURL(new RegExp(`/studies/${st.id}/review$`))

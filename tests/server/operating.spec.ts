@@ -42,13 +42,47 @@ describe('operating log', () => {
 
     const dup = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries`).set(eng).send(atDesign)
     expect(dup.status).toBe(409)
+    // the error names the month
+    expect(dup.body.error.message).toBe('2026-03 is logged already; edit that month instead.')
+    expect(dup.body.error.details).toEqual([{ path: 'body.month', message: '2026-03 is logged already' }])
 
     const worse = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries`).set(eng)
       .send({ month: '2026-04', gasFlow: design.gasFlow * 1.3, solventFlow: design.solventFlow, outletMoleFraction: 0.002 })
     const april = worse.body.months.find((x: { month: string }) => x.month === '2026-04')
     expect(april.gap).toBeGreaterThan(0)
-    expect(april.flags.map((f: { code: string }) => f.code)).toEqual(expect.arrayContaining(['recoveryBelowTarget']))
+    expect(april.flags.map((f: { code: string }) => f.code)).toEqual(expect.arrayContaining(['recoveryBelowTarget', 'gasAboveDesign', 'solventBelowDesign']))
     expect(worse.body.toDate.gap).toBeCloseTo(april.gap + m.gap, 6)
+  })
+
+  it('corrects a logged month under optimistic locking; a month taken already is named', async () => {
+    const { cobalt } = await siteIds()
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const { id, design } = await approvedStudy(cobalt)
+    const base = `/api/v1/sites/${cobalt}/studies/${id}/operating-entries`
+    await api().post(base).set(eng).send({ month: '2026-05', gasFlow: design.gasFlow, solventFlow: design.solventFlow, recovery: 0.97 })
+    const r = await api().post(base).set(eng).send({ month: '2026-06', gasFlow: design.gasFlow, solventFlow: design.solventFlow * 0.8, recovery: 0.9 })
+    const june = r.body.entries.find((e: { month: string }) => e.month === '2026-06')
+    expect(r.body.months.find((m: { month: string }) => m.month === '2026-06').flags.map((f: { code: string }) => f.code)).toContain('solventBelowDesign')
+    const entry = { month: '2026-06', gasFlow: design.gasFlow, solventFlow: design.solventFlow, inletMoleFraction: 0.014, recovery: 0.96, notes: 'flow meter recalibrated' }
+    const ok = await api().put(`${base}/${june.id}`).set(eng).send({ entry, lockVersion: june.lockVersion })
+    expect(ok.status).toBe(200)
+    const after = ok.body.entries.find((e: { id: number }) => e.id === june.id)
+    expect(after).toMatchObject({ solventFlow: design.solventFlow, inletMoleFraction: 0.014, recovery: 0.96, notes: 'flow meter recalibrated', lockVersion: june.lockVersion + 1 })
+    expect(ok.body.months.find((m: { month: string }) => m.month === '2026-06').flags.map((f: { code: string }) => f.code)).not.toContain('solventBelowDesign')
+    // a second writer with the old version is refused, nothing changes
+    const stale = await api().put(`${base}/${june.id}`).set(eng).send({ entry: { ...entry, notes: 'late writer' }, lockVersion: june.lockVersion })
+    expect(stale.status).toBe(409)
+    expect(stale.body.error.details[0].path).toBe('body.lockVersion')
+    // moving it onto a month logged already names that month
+    const onto = await api().put(`${base}/${june.id}`).set(eng).send({ entry: { ...entry, month: '2026-05' }, lockVersion: june.lockVersion + 1 })
+    expect(onto.status).toBe(409)
+    expect(onto.body.error.message).toContain('2026-05 is logged already')
+    // a CSV holding months logged already names them all; nothing is logged
+    const csv = 'month,gasFlow,solventFlow\n2026-05,400,330\n2026-06,400,330\n2026-07,400,330\n'
+    const imp = await api().post(`${base}/import`).set(eng).attach('file', Buffer.from(csv), 'log.csv')
+    expect(imp.status).toBe(409)
+    expect(imp.body.error.message).toBe('2026-05 and 2026-06 are logged already; edit those months instead.')
+    expect(await OperatingEntry.count({ where: { studyId: id } })).toBe(2)
   })
 
   it('imports a CSV: all rows or none, with line numbers', async () => {

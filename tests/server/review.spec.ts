@@ -130,6 +130,28 @@ describe('review and sign-off', () => {
     expect(n2.body.find((x: { studyId: number }) => x.studyId === id)).toBeUndefined()
   })
 
+  it('notifications read as sentences, review actions before new runs', async () => {
+    const { cobalt } = await siteIds()
+    // the reviewer looks at the study, then the engineer runs it again and submits it
+    const eng = await as('engineer')
+    const s = await api().post(`/api/v1/sites/${cobalt}/studies`).set(eng).send({ name: 'Sentence check', inputs: ethanolCase })
+    await api().get(`/api/v1/sites/${cobalt}/studies/${s.body.id}`).set(await as('reviewer'))
+    const run = await api().post(`/api/v1/sites/${cobalt}/studies/${s.body.id}/runs`).set(eng).send({ kind: 'design' })
+    const opt = await api().post(`/api/v1/sites/${cobalt}/studies/${s.body.id}/options`).set(eng).send({ runId: run.body.id, name: 'Base' })
+    const sub = await api().post(`/api/v1/sites/${cobalt}/studies/${s.body.id}/submit`).set(eng).send({ recommendedOptionId: opt.body.id, comment: '' })
+    expect(sub.status).toBe(200)
+    const me = await api().get('/api/v1/auth/me').set(eng)
+    const n = await api().get(`/api/v1/sites/${cobalt}/notifications`).set(await as('reviewer'))
+    const item = n.body.find((x: { studyId: number }) => x.studyId === s.body.id)
+    const what = item.changes.map((c: { what: string }) => c.what)
+    // the review action comes first, although the run is older
+    expect(what).toEqual([`${me.body.name} submitted the study for review`, `${me.body.name} ran a design`])
+    expect(what.join(' ')).not.toMatch(/ it$| it /)
+    // studies with a review action are listed before studies with only new runs
+    const kinds = (n.body as { changes: { kind: string }[] }[]).map((x) => (x.changes[0]!.kind === 'run' ? 'run' : 'action'))
+    expect(kinds.indexOf('run') === -1 || kinds.lastIndexOf('action') < kinds.indexOf('run')).toBe(true)
+  })
+
   it('a mail server that is down never breaks the action; the message stays queued for retry', async () => {
     const { cobalt } = await siteIds()
     const { id } = await studyWithOption(cobalt, 'Mail down')

@@ -16,7 +16,11 @@
  *  - flags (screening only): percent flood scales with the gas volumetric rate at fixed T and P,
  *    %F ≈ %F_design × φ (the liquid load changes the flow parameter only weakly); a gas rate below
  *    60 % of design risks weeping (common practice, no source); the solvent-to-gas ratio below the
- *    design's minimum (L/G)_min cannot reach the target; recovery below the design target.
+ *    design's minimum (L/G)_min cannot reach the target; recovery below the design target;
+ *  - a gas flow above the design's (the trays were sized for it); a solvent flow below what the
+ *    design needs for its recovery at the month's gas flow, L < (L/G)_design × G: at the installed
+ *    stages the recovery rises with the absorption factor A = L/(mG) (Kremser), so a lower L/G
+ *    than the design's gives less than the design recovery.
  */
 import type { DesignSummary } from '../contract.ts'
 import type { CostBreakdown } from '../costing/costDesign.ts'
@@ -41,7 +45,7 @@ export interface TrackingContext {
 }
 
 export interface TrackingFlag {
-  code: 'floodingRisk' | 'weepingRisk' | 'solventBelowMinimum' | 'recoveryBelowTarget' | 'noRecoveryMeasured'
+  code: 'gasAboveDesign' | 'solventBelowDesign' | 'floodingRisk' | 'weepingRisk' | 'solventBelowMinimum' | 'recoveryBelowTarget' | 'noRecoveryMeasured'
   severity: 'warn' | 'fail'
   message: string
 }
@@ -117,6 +121,17 @@ export function priceMonth(e: OperatingEntryInput, ctx: TrackingContext): MonthR
   design.total = design.solvent + design.electricity + design.lostProduct + design.emission + design.capital
 
   const flags: TrackingFlag[] = []
+  // A relative margin of 1e-6 keeps a month logged at exactly the design numbers unflagged.
+  if (phi > 1 + 1e-6) flags.push({ code: 'gasAboveDesign', severity: 'warn', message: `Gas flow ${(phi * 100).toFixed(0)} % of design: above the flow the column was designed for.` })
+  const lgDesign = d.solventFlow / d.gasFlow
+  const solventNeeded = lgDesign * e.gasFlow
+  if (e.solventFlow < solventNeeded * (1 - 1e-6)) {
+    flags.push({
+      code: 'solventBelowDesign',
+      severity: 'warn',
+      message: `Solvent flow ${((e.solventFlow / solventNeeded) * 100).toFixed(0)} % of what the design needs for its ${(d.recovery * 100).toFixed(1)} % recovery at this gas flow (solvent-to-gas ratio ${(e.solventFlow / e.gasFlow).toFixed(3)}, design ${lgDesign.toFixed(3)}).`,
+    })
+  }
   const pf = d.percentFlood * phi
   if (pf >= 100) flags.push({ code: 'floodingRisk', severity: 'fail', message: `Gas rate ${(phi * 100).toFixed(0)} % of design puts the trays at about ${pf.toFixed(0)} % of flood.` })
   else if (pf > 90) flags.push({ code: 'floodingRisk', severity: 'warn', message: `Gas rate ${(phi * 100).toFixed(0)} % of design puts the trays at about ${pf.toFixed(0)} % of flood.` })

@@ -16,7 +16,8 @@ import type { DesignResult, DesignSummary, DesignVariables, EngineIssue, EngineW
 import type { CaseSI } from './case.ts'
 import type { ReferenceKey } from './references.ts'
 import { InfeasibleDesignError } from './errors.ts'
-import { actualTrays, efficiencyOConnell } from './efficiency/oconnell.ts'
+import { actualTrays, efficiencyOConnell, efficiencyOConnellWarnings } from './efficiency/oconnell.ts'
+import { memoLast4 } from './numerics/memo.ts'
 import { VESSEL_CAUTION, vesselShell } from './vessel/shell.ts'
 import { equilibriumCurveOf } from './column/equilibrium.ts'
 import { KREMSER_STRAIGHTNESS_TOLERANCE, lastStageConvention, recoveryWithStages, solveBalances } from './column/balances.ts'
@@ -24,7 +25,8 @@ import { endStreams, sizeColumn } from './column/sizing.ts'
 import { trayState } from './column/trays.ts'
 import { trayChecks } from './column/checks.ts'
 import { buildProfile } from './column/profile.ts'
-import { guardFinite, numericSum } from './column/guard.ts'
+import { guardFinite } from './column/guard.ts'
+import { detailChecksum, type DesignDetail } from './column/detail.ts'
 
 export { equilibriumCurveOf } from './column/equilibrium.ts'
 
@@ -56,6 +58,16 @@ export const DESIGN_REFERENCES: readonly ReferenceKey[] = Object.freeze<Referenc
 ])
 
 const KMOLH = 3.6 // mol/s -> kmol/h
+
+/** O'Connell efficiency of the last (K, M, mu, rho): with a constant K it is the same for every design of a case. */
+const oconnellOf = memoLast4((K, M, mu, rho) => efficiencyOConnell(K, M, mu, rho))
+
+function overallEfficiency(c: CaseSI, Kmean: number, warnings: EngineWarning[]): number {
+  if (c.efficiency.model === 'fixed') return c.efficiency.value
+  const s = c.solvent
+  efficiencyOConnellWarnings(Kmean, s.molarMass, s.viscosity, s.density, warnings, 'efficiency')
+  return oconnellOf(Kmean, s.molarMass, s.viscosity, s.density)
+}
 
 function checkVariables(recovery: number, solventFactor: number, floodFraction: number, spacingIn: number | 'auto', actualTraysVar: number | undefined): void {
   const issues: EngineIssue[] = []
@@ -94,7 +106,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
   // ---- efficiency and trays
   const rhoL = c.solvent.density
   const Kmean = 0.5 * (b.Ktop + b.Kbot)
-  const Eo = c.efficiency.model === 'fixed' ? c.efficiency.value : efficiencyOConnell(Kmean, c.solvent.molarMass, c.solvent.viscosity, rhoL, warnings, 'efficiency')
+  const Eo = overallEfficiency(c, Kmean, warnings)
   const traysRequired = actualTrays(b.N, Eo)
   let trays = traysRequired
   let achievedRecovery = recovery
@@ -172,7 +184,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     achievedRecovery,
   }
 
-  const detail: Record<string, unknown> = wantDetail
+  const detail: DesignDetail | null = wantDetail
     ? {
         units: 'SI (molar flows in detail: mol/s)',
         references: DESIGN_REFERENCES,
@@ -233,7 +245,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
         },
         vessel: { designPressure: c.vessel.designPressure, thicknessCalculated: ves.thicknessCalculated, thicknessMinimum: ves.thicknessMinimum, thickness: ves.thickness, mass: ves.mass, height },
       }
-    : {}
+    : null
 
   const result: DesignResult = {
     summary,
@@ -241,8 +253,8 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     warnings,
     cautions: [VESSEL_CAUTION, ...c.cautions],
     profile: buildProfile(eq, b, wantProfile),
-    detail,
+    detail: detail ?? {},
   }
-  guardFinite(result, wantDetail ? numericSum(detail) : 0)
+  guardFinite(result, detail ? detailChecksum(detail) : 0)
   return result
 }

@@ -55,8 +55,32 @@ export function straightnessDeviation(eq: EquilibriumCurve, X0: number, XstarN: 
 
 const pct = (v: number): string => `${Number((100 * v).toPrecision(2))} %`
 
+interface ChoiceMemo {
+  requested: 'auto' | Method
+  yIn: number
+  xStarN: number
+  X0: number
+  XstarN: number
+  choice: MethodChoice
+}
+
+/**
+ * The last choice for each equilibrium curve: it depends on the case alone (not on the recovery
+ * or the solvent factor), and its note is a sentence built from formatted numbers, so the
+ * optimiser and a batch of one case would otherwise build the same sentence thousands of times.
+ */
+const choiceMemo = new WeakMap<EquilibriumCurve, ChoiceMemo>()
+
 /** Which method runs, and a note that says why, in words. */
 export function chooseMethod(requested: 'auto' | Method, eq: EquilibriumCurve, yIn: number, xStarN: number, X0: number, XstarN: number): MethodChoice {
+  const m = choiceMemo.get(eq)
+  if (m && m.requested === requested && m.yIn === yIn && m.xStarN === xStarN && m.X0 === X0 && m.XstarN === XstarN) return m.choice
+  const choice = Object.freeze(buildChoice(requested, eq, yIn, xStarN, X0, XstarN))
+  choiceMemo.set(eq, { requested, yIn, xStarN, X0, XstarN, choice })
+  return choice
+}
+
+function buildChoice(requested: 'auto' | Method, eq: EquilibriumCurve, yIn: number, xStarN: number, X0: number, XstarN: number): MethodChoice {
   const straightness = straightnessDeviation(eq, X0, XstarN)
   const reasons: string[] = []
   if (yIn > DILUTE_LIMIT) reasons.push(`the inlet gas is concentrated (solute mole fraction ${yIn.toPrecision(3)}, above ${DILUTE_LIMIT})`)

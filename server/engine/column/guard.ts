@@ -2,7 +2,7 @@
  * No NaN or Infinity leaves the engine: the summary, checks and profile are verified (a
  * non-finite value is a structured 'numericalFailure'); non-finite detail numbers become null.
  */
-import type { DesignResult } from '../contract.ts'
+import type { DesignResult, DesignSummary } from '../contract.ts'
 import { InfeasibleDesignError } from '../errors.ts'
 
 /** Sum of the numbers of an object tree, cheap, to detect a non-finite value in the detail. */
@@ -19,11 +19,24 @@ export function numericSum(o: unknown, depth = 0): number {
   return s
 }
 
+/** The sum of the summary's numbers (non-finite when one of them is), field by field. */
+export function summaryChecksum(s: DesignSummary): number {
+  return (
+    s.minimumSolventFlow + s.solventFlow + s.absorptionFactor + s.theoreticalStages + s.actualTrays + s.outletGasSoluteMoleFraction + s.richSolventSoluteMoleFraction +
+    s.gasDensity + s.flowParameter + s.capacityFactor + s.floodingVelocity + s.downcomerAreaFraction + s.holeAreaFraction + s.traySpacing + s.diameter + s.selectedDiameter +
+    s.pressureDropPerTray + s.columnPressureDrop + s.columnHeight + s.recovery + s.solventFactor + s.floodFraction + s.gasFlow + s.gasVolumetricFlow + s.solventMassFlow +
+    s.solventVolumetricFlow + s.soluteInGas + s.soluteAbsorbed + s.soluteLost + s.operatingPressure + s.designPressure + s.shellThickness + s.shellMass + s.percentFlood +
+    (s.fractionOfFloodTarget ?? 0) + (s.overallEfficiency ?? 0) + (s.achievedRecovery ?? 0)
+  )
+}
+
 export function guardFinite(r: DesignResult, detailChecksum: number): void {
-  const s = r.summary as unknown as Record<string, unknown>
-  for (const k in s) {
-    const v = s[k]
-    if (typeof v === 'number' && !Number.isFinite(v)) throw nonFinite(`summary.${k}`)
+  if (!Number.isFinite(summaryChecksum(r.summary))) {
+    const s = r.summary as unknown as Record<string, unknown>
+    for (const k in s) {
+      const v = s[k]
+      if (typeof v === 'number' && !Number.isFinite(v)) throw nonFinite(`summary.${k}`)
+    }
   }
   for (let i = 0; i < r.checks.length; i++) {
     const ch = r.checks[i]!

@@ -12,6 +12,7 @@ import { InfeasibleDesignError } from '../errors.ts'
 import { densityIdealGas } from '../properties/gas.ts'
 import {
   capacityFactorFair,
+  capacityFactorFairWarnings,
   diameterFromFlooding,
   downcomerAreaFraction,
   floodingVelocity,
@@ -22,6 +23,9 @@ import {
   surfaceTensionFactor,
 } from '../hydraulics/flooding.ts'
 import type { Balances } from './balances.ts'
+import { memoLast1 } from '../numerics/memo.ts'
+
+const surfaceTensionFactorOf = memoLast1(surfaceTensionFactor)
 
 export interface EndStreams {
   gasMol: number // mol/s
@@ -82,9 +86,9 @@ export function endStreams(c: CaseSI, b: Balances): { bot: EndStreams; top: EndS
   return { bot, top, leanMass }
 }
 
-function sizeEnd(s: EndStreams, t: number, rhoL: number, FST: number, FF: number, FHA: number, f: number, warnings: EngineWarning[] | undefined, out: EndSizing): void {
+function sizeEnd(s: EndStreams, t: number, rhoL: number, FST: number, FF: number, FHA: number, f: number, out: EndSizing): void {
   const FLV = flowParameter(s.liqMass, s.gasMass, s.rhoV, rhoL)
-  const CF = capacityFactorFair(t, FLV, warnings, 'flowParameter')
+  const CF = capacityFactorFair(t, FLV)
   const C = CF * FST * FF * FHA
   const vF = C > 0 ? floodingVelocity(C, rhoL, s.rhoV) : 0
   const AdAt = downcomerAreaFraction(FLV)
@@ -123,7 +127,7 @@ export function sizeColumn(c: CaseSI, bot: EndStreams, top: EndStreams, spacingI
   const tr = c.tray
   const rhoL = c.solvent.density
   const AhAa = holeAreaFractionTriangular(tr.holeDiameter, tr.holePitch)
-  const FST = surfaceTensionFactor(c.solvent.surfaceTension)
+  const FST = surfaceTensionFactorOf(c.solvent.surfaceTension)
   const FF = tr.foamingFactor
   const FHA = holeAreaFactor(AhAa, warnings, 'tray.holePitch')
   const step = c.column.diameterStep
@@ -131,14 +135,16 @@ export function sizeColumn(c: CaseSI, bot: EndStreams, top: EndStreams, spacingI
   const sTop: EndSizing = { FLV: 0, CF: 0, C: 0, vF: 0, AdAt: 0, D: 0 }
   let t: number
   let spacingIterations = 0
+  let sizedAt = NaN // the spacing sBot and sTop hold
   if (spacingIn === 'auto') {
     const rule = tr.spacingRule
     t = rule[0]!.spacing
     let tPrev = NaN
     for (;;) {
       spacingIterations++
-      sizeEnd(bot, t, rhoL, FST, FF, FHA, floodFraction, undefined, sBot)
-      sizeEnd(top, t, rhoL, FST, FF, FHA, floodFraction, undefined, sTop)
+      sizeEnd(bot, t, rhoL, FST, FF, FHA, floodFraction, sBot)
+      sizeEnd(top, t, rhoL, FST, FF, FHA, floodFraction, sTop)
+      sizedAt = t
       const D = Math.max(sBot.D, sTop.D)
       if (!Number.isFinite(D)) break
       const tNew = spacingFromRule(rule, roundUp(D, step))
@@ -157,12 +163,14 @@ export function sizeColumn(c: CaseSI, bot: EndStreams, top: EndStreams, spacingI
     t = spacingIn
   }
   fairValidityWarnings(tr.holeDiameter, tr.weirHeight, t, warnings)
-  sizeEnd(bot, t, rhoL, FST, FF, FHA, floodFraction, undefined, sBot)
-  sizeEnd(top, t, rhoL, FST, FF, FHA, floodFraction, undefined, sTop)
+  if (t !== sizedAt) {
+    sizeEnd(bot, t, rhoL, FST, FF, FHA, floodFraction, sBot)
+    sizeEnd(top, t, rhoL, FST, FF, FHA, floodFraction, sTop)
+  }
   const designEndIsBottom = sBot.D >= sTop.D
   const sD = designEndIsBottom ? sBot : sTop
   // warnings of the correlations, once, at the design end
-  sizeEnd(designEndIsBottom ? bot : top, t, rhoL, FST, FF, FHA, floodFraction, warnings, sD)
+  capacityFactorFairWarnings(t, sD.FLV, warnings, 'flowParameter')
   const Dcalc = sD.D
   if (!(sD.C > 0) || !Number.isFinite(Dcalc)) {
     throw new InfeasibleDesignError([

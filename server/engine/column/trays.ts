@@ -10,6 +10,7 @@ import type { CaseSI } from '../case.ts'
 import type { EngineWarning } from '../contract.ts'
 import { G_ACC } from '../properties/constants.ts'
 import {
+  clearLiquidCoefficient,
   clearLiquidHeight,
   downcomerEntranceLoss,
   dryTrayHead,
@@ -23,6 +24,11 @@ import {
   weepVelocityTreybal,
 } from '../hydraulics/tray.ts'
 import type { EndSizing, EndStreams, Sizing } from './sizing.ts'
+import { memoLast1 } from '../numerics/memo.ts'
+
+/** The weir length ratio (a Newton solve with sines) is the same for every design at the minimum downcomer fraction. */
+const weirLengthRatioOf = memoLast1(weirLengthRatio)
+const clearLiquidCoefficientOf = memoLast1(clearLiquidCoefficient)
 
 export interface TrayHydraulics {
   vo: number
@@ -56,14 +62,14 @@ export interface TrayGeometry {
   Co: number
 }
 
-function trayHydraulics(s: EndStreams, sz: EndSizing, t: number, c: CaseSI, g: TrayGeometry, AhAa: number): TrayHydraulics {
+function trayHydraulics(s: EndStreams, sz: EndSizing, t: number, c: CaseSI, g: TrayGeometry, AhAa: number, Cl: number): TrayHydraulics {
   const tr = c.tray
   const rhoL = c.solvent.density
   const vo = s.Q / g.Ah
   const va = s.Q / g.Aa
   const Ks = va * Math.sqrt(s.rhoV / (rhoL - s.rhoV))
   const phiE = frothDensity(Ks)
-  const hL = clearLiquidHeight(phiE, tr.weirHeight, s.qL, g.Lw)
+  const hL = clearLiquidHeight(phiE, tr.weirHeight, s.qL, g.Lw, Cl)
   const hd = dryTrayHead(vo, g.Co, s.rhoV, rhoL, AhAa)
   const hSigma = residualHead(c.solvent.surfaceTension, rhoL, tr.holeDiameter)
   const ht = hd + hL + hSigma
@@ -104,20 +110,21 @@ export function trayState(c: CaseSI, sz: Sizing, bot: EndStreams, top: EndStream
   const An = At - Ad
   const Aa = At - 2 * Ad
   const Ah = sz.AhAa * Aa
-  const Lw = weirLengthRatio(AdAt) * D
+  const Lw = weirLengthRatioOf(AdAt) * D
   const Co = orificeCoefficient(tr.holeDiameter, tr.thickness)
   if (tr.holeDiameter / tr.thickness < 1) {
     warnings.push({ code: 'outsideValidity', message: 'Orifice coefficient: the hole diameter is smaller than the plate thickness, outside the chart the fit comes from; the dry-tray head is extrapolated', path: 'tray.thickness' })
   }
   const geometry: TrayGeometry = { AdAt, At, Ad, An, Aa, Ah, Lw, Co }
-  const hBot = trayHydraulics(bot, sz.sBot, sz.t, c, geometry, sz.AhAa)
-  const hTop = trayHydraulics(top, sz.sTop, sz.t, c, geometry, sz.AhAa)
+  const Cl = clearLiquidCoefficientOf(tr.weirHeight)
+  const hBot = trayHydraulics(bot, sz.sBot, sz.t, c, geometry, sz.AhAa, Cl)
+  const hTop = trayHydraulics(top, sz.sTop, sz.t, c, geometry, sz.AhAa, Cl)
   // turndown: the lowest gas rate at design liquid rate, at the end that weeps first
   const tdf = tr.turndownFraction
   const topWeepsFirst = hTop.Fr <= hBot.Fr
   const sLow = topWeepsFirst ? top : bot
   const turn: EndStreams = { gasMol: sLow.gasMol * tdf, gasMass: sLow.gasMass * tdf, rhoV: sLow.rhoV, Q: sLow.Q * tdf, liqMass: sLow.liqMass, qL: sLow.qL }
-  const hTurn = trayHydraulics(turn, topWeepsFirst ? sz.sTop : sz.sBot, sz.t, c, geometry, sz.AhAa)
+  const hTurn = trayHydraulics(turn, topWeepsFirst ? sz.sTop : sz.sBot, sz.t, c, geometry, sz.AhAa, Cl)
   // second weeping method (Treybal eq. 6.46), when the gas viscosity is known
   const lwRatio = Lw / D
   const Zflow = D * Math.sqrt(1 - lwRatio * lwRatio)

@@ -26,6 +26,15 @@ export const LB_PER_FT3 = 16.018463373960138
 export function efficiencyOConnell(K: number, ML: number, muL: number, rhoL: number, warnings?: EngineWarning[], path?: string): number {
   const g = oconnellGroup(K, ML, muL, rhoL)
   checkRange(warnings, "O'Connell absorber efficiency", efficiencyOConnellValidity, g, path)
+  return oconnellOfGroup(g)
+}
+
+/** The note when the O'Connell group is outside its validity (what efficiencyOConnell adds to the warnings). */
+export function efficiencyOConnellWarnings(K: number, ML: number, muL: number, rhoL: number, warnings: EngineWarning[], path?: string): void {
+  checkRange(warnings, "O'Connell absorber efficiency", efficiencyOConnellValidity, oconnellGroup(K, ML, muL, rhoL), path)
+}
+
+function oconnellOfGroup(g: number): number {
   const l = Math.log10(g)
   return Math.pow(10, 1.597 - 0.199 * l - 0.0896 * l * l) / 100
 }

@@ -29,18 +29,7 @@ export function flowParameter(L: number, G: number, rhoV: number, rhoL: number):
  * Example: capacityFactorFair(0.5, 0.05) = 0.07913 m/s (F_LV floored at 0.1)
  */
 export function capacityFactorFair(t: number, FLV: number, warnings?: EngineWarning[], path?: string): number {
-  if (warnings) {
-    // one note per fact: below 0.1 the source's floor applies (0.1 is inside the range), so the
-    // range is checked only for the value actually used
-    if (FLV < 0.1) {
-      warnings.push({
-        code: 'flowParameterFloored',
-        message: `Fair flooding correlation: flow parameter F_LV = ${FLV.toFixed(4)} is below 0.1; 0.1 is used, as the source prescribes`,
-        path,
-      })
-    } else checkRange(warnings, 'Fair flooding correlation (flow parameter)', capacityFactorFairValidity[0], FLV, path)
-    checkRange(warnings, 'Fair flooding correlation (tray spacing)', capacityFactorFairValidity[1], t, 'tray.spacing')
-  }
+  if (warnings) capacityFactorFairWarnings(t, FLV, warnings, path)
   const f = FLV < 0.1 ? 0.1 : FLV
   return (0.0744 * t + 0.01173) * Math.log10(1 / f) + (0.0304 * t + 0.015)
 }
@@ -48,6 +37,20 @@ export const capacityFactorFairValidity: readonly [ValidityRange, ValidityRange]
   { arg: 'F_LV', min: 0.01, max: 1, unit: '-' },
   { arg: 't', min: 0.15, max: 0.9, unit: 'm' },
 ]
+
+/** The notes of the Fair correlation at (t, F_LV): the floor below F_LV = 0.1, and the validity ranges. */
+export function capacityFactorFairWarnings(t: number, FLV: number, warnings: EngineWarning[], path?: string): void {
+  // one note per fact: below 0.1 the source's floor applies (0.1 is inside the range), so the
+  // range is checked only for the value actually used
+  if (FLV < 0.1) {
+    warnings.push({
+      code: 'flowParameterFloored',
+      message: `Fair flooding correlation: flow parameter F_LV = ${FLV.toFixed(4)} is below 0.1; 0.1 is used, as the source prescribes`,
+      path,
+    })
+  } else checkRange(warnings, 'Fair flooding correlation (flow parameter)', capacityFactorFairValidity[0], FLV, path)
+  checkRange(warnings, 'Fair flooding correlation (tray spacing)', capacityFactorFairValidity[1], t, 'tray.spacing')
+}
 
 /**
  * Surface-tension factor. Equation: F_ST = (sigma/20)^0.2, sigma in dyn/cm (mN/m).

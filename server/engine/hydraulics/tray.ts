@@ -47,9 +47,18 @@ export function frothDensity(Ks: number): number {
  * @param phiE froth density [-]; @param hw weir height [m]; @param qL liquid flow [m3/s]; @param Lw weir length [m]
  * Source: bennett1983 via benitez2009 ch. 4. Example: clearLiquidHeight(0.5, 0.05, 0.005, 1) = 0.03664 m
  */
-export function clearLiquidHeight(phiE: number, hw: number, qL: number, Lw: number): number {
-  const C = 0.5012 + 0.4389 * Math.exp(-137.8 * hw)
-  return phiE * (hw + C * Math.pow(qL / (Lw * phiE), 2 / 3))
+export function clearLiquidHeight(phiE: number, hw: number, qL: number, Lw: number, C: number = clearLiquidCoefficient(hw)): number {
+  const r = qL / (Lw * phiE)
+  return phiE * (hw + C * Math.cbrt(r * r)) // r^(2/3) as a cube root: faster than pow, same value to rounding
+}
+
+/**
+ * The coefficient C of the clear-liquid height: C = 0.5012 + 0.4389 exp(-137.8 h_w) (h_w in m); it
+ * depends on the weir alone, so a design computes it once and passes it to clearLiquidHeight.
+ * Source: bennett1983 via benitez2009 ch. 4. Example: clearLiquidCoefficient(0.05) = 0.50165
+ */
+export function clearLiquidCoefficient(hw: number): number {
+  return 0.5012 + 0.4389 * Math.exp(-137.8 * hw)
 }
 
 /**
@@ -80,8 +89,10 @@ export const WEEP_FROUDE_LIMIT = 0.5
  * Source: benitez2009 eqs 4.45-4.47 (original author not named there).
  */
 export function entrainmentBenitez(hL: number, dO: number, phiE: number, Ks: number, AhAa: number, t: number, rhoL: number, rhoV: number): number {
-  const k = 0.5 * (1 - Math.tanh(1.3 * Math.log(hL / dO) - 0.15))
-  const h2p = hL / phiE + (7.79 * (1 + 6.9 * Math.pow(dO / hL, 1.85)) * Ks * Ks) / (phiE * G_ACC * AhAa)
+  const lnR = Math.log(hL / dO)
+  const k = 0.5 * (1 - Math.tanh(1.3 * lnR - 0.15))
+  // (d_o/h_L)^1.85 from the logarithm above: one exp instead of a pow
+  const h2p = hL / phiE + (7.79 * (1 + 6.9 * Math.exp(-1.85 * lnR)) * Ks * Ks) / (phiE * G_ACC * AhAa)
   return 0.00335 * Math.pow(h2p / t, 1.1) * Math.sqrt(rhoL / rhoV) * Math.pow(hL / h2p, k)
 }
 
@@ -91,7 +102,8 @@ export function entrainmentBenitez(hL: number, dO: number, phiE: number, Ks: num
  * Source: sinnott2005 sec. 11.13. Example: weirCrestFrancis(0.01, 0.8) = 0.04040 m (10 kg/s of water at 1000 kg/m3)
  */
 export function weirCrestFrancis(qL: number, Lw: number): number {
-  return 0.75 * Math.pow(qL / Lw, 2 / 3)
+  const r = qL / Lw
+  return 0.75 * Math.cbrt(r * r) // r^(2/3)
 }
 
 /**

@@ -75,11 +75,10 @@ export function polishEdges(ev: Evaluator, basis: CostBasisData, box: Box, start
  * inside the cell and checked. Null when the tray count cannot be met or the point is infeasible.
  */
 export function edgeU(ev: Evaluator, x: X, trays: number, box: Box): number | null {
-  const key = `${x.s}|${x.f}|${x.t}|${trays}`
-  const hit = ev.edges.get(key)
+  const hit = ev.edges.get(x.t, x.f, x.s, trays)
   if (hit !== undefined) return hit
   const u = edgeUSolve(ev, x, trays, box)
-  ev.edges.set(key, u)
+  ev.edges.set(x.t, x.f, x.s, trays, u)
   return u
 }
 

@@ -70,7 +70,7 @@ export function optimiseWith(
 
   const best = ev.evaluate(found.x, basis)
   if (!best.feasible || !best.design || !best.cost) throw new Error('optimum lost its design')
-  const d = best.design
+  const d = ev.resultAt(found.x)
   const n = search.curvePoints
   const rValues: number[] = []
   for (let i = 0; i < n; i++) rValues.push(rLo + ((rHi - rLo) * i) / (n - 1))
@@ -87,7 +87,7 @@ export function optimiseWith(
   const t3 = performance.now()
 
   let feasibleCount = 0
-  for (const v of ev.raw.values()) if (typeof v !== "string" && ev.rejects(v) === null) feasibleCount++
+  for (const v of ev.raw.values()) if (typeof v !== 'string' && v.reject === null) feasibleCount++
 
   const traySpacing = search.traySpacings[found.x.t] ?? d.summary.traySpacing
   return {

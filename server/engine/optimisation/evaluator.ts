@@ -4,7 +4,7 @@
  */
 import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
 import type { SearchSpec } from '../../../shared/schemas/search.ts'
-import type { DesignResult, DesignVariables } from '../contract.ts'
+import type { DesignResult, DesignSummary, DesignVariables } from '../contract.ts'
 import { costDesign, totalAnnualCost, type CostBreakdown, type CostItemKey } from '../costing/costDesign.ts'
 import { isEngineError } from '../errors.ts'
 
@@ -82,10 +82,21 @@ export interface X {
   t: number // index into traySpacings
 }
 
+/**
+ * What the search keeps of one design: its summary and, when its checks or the search limits
+ * refuse it, why. The evaluator keeps thousands of them: the whole result (checks, warnings,
+ * profile) held that long makes the garbage collector copy it again and again.
+ */
+export interface PointDesign {
+  summary: DesignSummary
+  /** null when the design passes the checks and the search limits */
+  reject: string | null
+}
+
 export interface Eval {
   feasible: boolean
   tac: number
-  design?: DesignResult
+  design?: PointDesign
   cost?: CostBreakdown
   reason?: string
 }
@@ -102,6 +113,31 @@ export class NoFeasibleDesignError extends Error {
 
 export const toU = (r: number) => -Math.log(1 - r)
 export const toR = (u: number) => -Math.expm1(-u)
+
+/**
+ * A map keyed by four numbers, as maps inside maps: a key made of the numbers as a string costs
+ * more than the lean design it looks up (four number-to-text conversions per lookup).
+ */
+export class NumberKeyMap4<V> {
+  private readonly root = new Map<number, Map<number, Map<number, Map<number, V>>>>()
+  size = 0
+  get(a: number, b: number, c: number, d: number): V | undefined {
+    return this.root.get(a)?.get(b)?.get(c)?.get(d)
+  }
+  set(a: number, b: number, c: number, d: number, v: V): void {
+    let mb = this.root.get(a)
+    if (!mb) this.root.set(a, (mb = new Map()))
+    let mc = mb.get(b)
+    if (!mc) mb.set(b, (mc = new Map()))
+    let md = mc.get(c)
+    if (!md) mc.set(c, (md = new Map()))
+    if (!md.has(d)) this.size++
+    md.set(d, v)
+  }
+  *values(): IterableIterator<V> {
+    for (const mb of this.root.values()) for (const mc of mb.values()) for (const md of mc.values()) yield* md.values()
+  }
+}
 
 /** The evaluation context: the design cache, bounds and the running count of design evaluations. */
 export class Evaluator {
@@ -123,30 +159,35 @@ export class Evaluator {
   vars(x: X): DesignVariables {
     return { recovery: toR(x.u), solventFactor: x.s, floodFraction: x.f, traySpacing: this.spacings[x.t] ?? 0.6 }
   }
-  readonly raw = new Map<string, DesignResult | string>()
-  /** Cell edges already solved: (solvent factor, flood, spacing, trays) -> u or null. */
-  readonly edges = new Map<string, number | null>()
+  /** Designs by (spacing index, fraction of flood, solvent factor, u). */
+  readonly raw = new NumberKeyMap4<PointDesign | string>()
+  /** Cell edges already solved: (spacing, flood, solvent factor, trays) -> u or null. */
+  readonly edges = new NumberKeyMap4<number | null>()
   /** The design for these variables (cached) whatever its checks say, or why the engine refused it. */
-  rawAt(x: X): DesignResult | string {
-    const key = `${x.u}|${x.s}|${x.f}|${x.t}`
-    const hit = this.raw.get(key)
+  rawAt(x: X): PointDesign | string {
+    const hit = this.raw.get(x.t, x.f, x.s, x.u)
     if (hit !== undefined) return hit
-    let out: DesignResult | string
+    let out: PointDesign | string
     this.designEvaluations++
     try {
-      out = this.design(this.vars(x))
+      const d = this.design(this.vars(x))
+      out = { summary: d.summary, reject: this.rejects(d) }
     } catch (e) {
       if (isEngineError(e)) out = e.message || e.code
       else throw e
     }
-    this.raw.set(key, out)
+    this.raw.set(x.t, x.f, x.s, x.u, out)
     return out
   }
   /** A feasible design for these variables, or the reason it is infeasible. */
-  designAt(x: X): DesignResult | string {
+  designAt(x: X): PointDesign | string {
     const d = this.rawAt(x)
     if (typeof d === 'string') return d
-    return this.rejects(d) ?? d
+    return d.reject ?? d
+  }
+  /** The whole design result at a point (computed again: the cache keeps the summaries only). */
+  resultAt(x: X): DesignResult {
+    return this.design(this.vars(x))
   }
   rejects(d: DesignResult): string | null {
     for (const c of d.checks) {
@@ -178,7 +219,7 @@ export function linspace(a: number, b: number, n: number): number[] {
   return out
 }
 
-export const sameCell = (a: DesignResult, b: DesignResult) =>
+export const sameCell = (a: PointDesign, b: PointDesign) =>
   a.summary.actualTrays === b.summary.actualTrays && a.summary.selectedDiameter === b.summary.selectedDiameter
 
 export interface Box {

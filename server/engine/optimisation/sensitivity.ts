@@ -44,10 +44,13 @@ export const sensitivityItems: SensItem[] = [
   } },
 ]
 
+/** One formatter for the notes: toLocaleString would build a new one for every number. */
+const THOUSANDS = new Intl.NumberFormat('en-GB')
+
 /** A number for a note: 4 significant digits, thousands separated. */
 function num(v: number): string {
   const r = Number(v.toPrecision(4))
-  return Math.abs(r) >= 1000 ? r.toLocaleString('en-GB') : String(r)
+  return Math.abs(r) >= 1000 ? THOUSANDS.format(r) : String(r)
 }
 const signedPct = (c: number): string => `${c >= 0 ? '+' : '\u2212'}${Number(Math.abs(100 * c).toPrecision(3))} %`
 

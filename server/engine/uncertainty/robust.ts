@@ -71,9 +71,13 @@ export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpe
   const at = (u: number, s: number): Candidate | null => {
     const key = `${u}|${s}`
     if (seen.has(key)) return seen.get(key)!
-    const d = ev.designAt({ u, s, f: o.floodFraction, t: tIndex })
+    const x = { u, s, f: o.floodFraction, t: tIndex }
     let cand: Candidate | null = null
-    if (typeof d !== 'string') cand = { u, s, design: d, ...judge(c, basis, d, searchSet, target) }
+    if (typeof ev.designAt(x) !== 'string') {
+      // the evaluator keeps summaries only: the column to rate needs the whole result
+      const d = ev.resultAt(x)
+      cand = { u, s, design: d, ...judge(c, basis, d, searchSet, target) }
+    }
     seen.set(key, cand)
     return cand
   }

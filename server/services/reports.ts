@@ -6,10 +6,12 @@ import { QUANTITY_KINDS } from '../../shared/units.ts'
 import { VESSEL_CAUTION } from '../engine/vessel/shell.ts'
 import type { DesignResult, DesignSummary } from '../engine/contract.ts'
 import type { CostBreakdown } from '../engine/costing/index.ts'
+import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { OptimiseResult, CurvePoint } from '../engine/optimisation/core.ts'
 import type { ReportModel, RunMeta, ValueRow, CostRow, CurveSeries, ReviewRow } from './reports/model.ts'
 import { fmt } from './reports/format.ts'
 import { renderPdf } from './reports/pdf.ts'
+import { studyConfidence } from './reports/confidence.ts'
 import { renderXlsx } from './reports/xlsx.ts'
 
 export type { ReportModel, RunMeta, ValueRow, CostRow, CurveSeries, ReviewRow }
@@ -264,6 +266,7 @@ export async function buildReport(siteId: number, studyId: number, generatedBy: 
     review: events.map((e) => ({ kind: e.kind, who: who.get(e.userId) ?? `user ${e.userId}`, at: e.createdAt, body: e.body })),
     // The report's own vessel caution stands for the engine's wordings of the same warning.
     cautions: [VESSEL_CAUTION, ...new Set(cautions.filter((c) => c !== VESSEL_CAUTION))],
+    confidence: design ? await studyConfidence(siteId, designRun ? designRun.inputs : s.inputs, inForce?.data as CostBasisData | undefined) : null,
   }
 }
 

@@ -173,6 +173,7 @@ export type UncertaintyResult = z.infer<typeof uncertaintyResultSchema>
 /** The robust optimum in an optimisation answer. */
 export const robustResultSchema = z.looseObject({
   confidence: finite,
+  currency: z.string(),
   floor: z.looseObject({ recovery: finite, emissionLimit: finite.nullable() }),
   found: z.boolean(),
   reason: z.string().optional(),

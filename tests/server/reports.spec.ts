@@ -85,6 +85,9 @@ describe('study report (PDF)', () => {
     expect(text).toContain('Total annualised cost vs solvent factor')
     expect(text).toMatch(/Actual trays \d+/)
     expect(text).toContain(`Actual trays ${design.result.summary.actualTrays}`)
+    // the Confidence section with its assumptions (server/services/reports/confidence.ts)
+    expect(text).toMatch(/Chance of meeting the target \(recovery at or above [\d.]+ %\): [\d.]+ %/)
+    expect(text).toContain('Equilibrium K: lognormal multiplier, median 1, sigma of ln 0.2 (product default')
   })
 
   it('says so when no run exists instead of failing', async () => {
@@ -113,7 +116,7 @@ describe('study report (PDF)', () => {
 })
 
 describe('study export (XLSX)', () => {
-  it('has the six sheets with units in the headers and the run numbers in the cells', async () => {
+  it('has the seven sheets with units in the headers and the run numbers in the cells', async () => {
     const r = await api().get(`/api/v1/sites/${cobalt}/studies/${studyId}/export.xlsx`).set(await auth('reviewer')).buffer(true).parse(binary)
     expect(r.status).toBe(200)
     expect(r.headers['content-type']).toBe('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
@@ -121,7 +124,11 @@ describe('study export (XLSX)', () => {
     const wb = new ExcelJS.Workbook()
     const buf = r.body as Buffer
     await wb.xlsx.load(buf.buffer.slice(buf.byteOffset, buf.byteOffset + buf.byteLength) as ArrayBuffer)
-    expect(wb.worksheets.map((w) => w.name)).toEqual(['Inputs', 'Design', 'Checks', 'Costs', 'Curves', 'Options'])
+    expect(wb.worksheets.map((w) => w.name)).toEqual(['Inputs', 'Design', 'Checks', 'Costs', 'Curves', 'Options', 'Confidence'])
+    const chance = wb.getWorksheet('Confidence')!.getColumn(1).values.indexOf('Chance of meeting the target')
+    const p = wb.getWorksheet('Confidence')!.getRow(chance).getCell(2).value as number
+    expect(p).toBeGreaterThanOrEqual(0)
+    expect(p).toBeLessThanOrEqual(1)
 
     const rowsOf = (name: string) => {
       const ws = wb.getWorksheet(name)!

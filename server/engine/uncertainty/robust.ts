@@ -149,6 +149,7 @@ export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpe
   }
   const base = {
     confidence: robust.confidence,
+    currency: basis.general.currency,
     floor: { recovery: rLo, emissionLimit: search.emissionLimit ?? null },
     heldAtNominalOptimum: ['traySpacing', 'floodFraction'],
     nominal: nominalOut,

@@ -1,5 +1,6 @@
 import type { DesignSummary, CheckResult } from '../../engine/contract.ts'
 import type { OptionRow } from '../../../shared/schemas/studies.ts'
+import type { ConfidenceSection } from './confidence.ts'
 
 /** The report's data model: gathered by ../reports.ts, rendered by ./pdf.ts and ./xlsx.ts. */
 export interface RunMeta {
@@ -65,4 +66,6 @@ export interface ReportModel {
   recommendedOptionId: number | null
   review: ReviewRow[]
   cautions: string[]
+  /** The chance the design meets its target (./confidence.ts); null when the inputs give no design. */
+  confidence?: ConfidenceSection | null
 }

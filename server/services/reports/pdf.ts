@@ -1,6 +1,7 @@
 import PDFDocument from 'pdfkit'
 import type { ReportModel, CurveSeries } from './model.ts'
 import { fmt, money } from './format.ts'
+import { confidencePdf } from './confidence.ts'
 
 /**
  * The printable study report (A4, built-in Helvetica: nothing is loaded from outside).
@@ -310,6 +311,8 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
     table(doc, [{ title: 'When', width: 110 }, { title: 'Event', width: 70 }, { title: 'Who', width: 110 }, { title: 'Comment', width: 205 }],
       m.review.map((e) => [dateTime(e.at), e.kind, e.who, e.body.replace(/\s+/g, ' ')]))
   }
+
+  if (m.confidence) confidencePdf(doc, m.confidence, pdfText)
 
   // ---- cautions
   heading(doc, 'Cautions')

@@ -1,5 +1,6 @@
 import ExcelJS from 'exceljs'
 import type { ReportModel } from './model.ts'
+import { confidenceSheet } from './confidence.ts'
 
 /**
  * The study as a workbook: Inputs, Design, Checks, Costs, Curves, Options. Numbers stay numbers
@@ -98,6 +99,7 @@ export async function renderXlsx(m: ReportModel): Promise<Buffer> {
     })
   }
 
+  if (m.confidence) confidenceSheet(wb, m.confidence)
   neutraliseFormulas(wb)
   const out = await wb.xlsx.writeBuffer()
   return Buffer.from(out as ArrayBuffer)

@@ -11,6 +11,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { openBrowser, shot, signIn, type BrowserSession } from './support.ts'
 
+/** How long a condition may take to come true on a loaded machine (polled, not slept). */
+const WAIT = { timeout: 20000, interval: 100 }
+
 let s: BrowserSession
 const tag = Date.now().toString(36)
 /** Screenshots for people to look at (outside the repository when SHOTS_DIR is set). */
@@ -52,7 +55,7 @@ async function newStudy(p: Page, name: string): Promise<void> {
   await p.getByTestId('create-study').click()
   await p.waitForURL(/\/studies\/\d+\/streams/)
   await input(p, 'gas-flow').waitFor()
-  await expect.poll(() => input(p, 'gas-flow').isEnabled()).toBe(true)
+  await expect.poll(() => input(p, 'gas-flow').isEnabled(), WAIT).toBe(true)
 }
 
 beforeAll(async () => {
@@ -80,14 +83,14 @@ describe('study inputs: nothing nonsensical is saved or run', () => {
     await list.getByText('0.8: L/Lmin must be above 1').waitFor()
     // each message sits on its field too
     await p.getByTestId('gas-flow').getByText('-300 kmol/h: the gas flow must be positive').waitFor()
-    await expect.poll(() => p.getByTestId('save-study').isDisabled()).toBe(true)
-    await expect.poll(() => p.getByTestId('run-design').isDisabled()).toBe(true)
-    await expect(p.getByTestId('blocked-reason').innerText()).resolves.toMatch(/3 inputs need attention/)
+    await expect.poll(() => p.getByTestId('save-study').isDisabled(), WAIT).toBe(true)
+    await expect.poll(() => p.getByTestId('run-design').isDisabled(), WAIT).toBe(true)
+    await expect.poll(() => p.getByTestId('blocked-reason').innerText(), WAIT).toMatch(/3 inputs need attention/)
     await expect(p.getByTestId('run-design').getAttribute('aria-describedby')).resolves.toBe('blocked-reason')
     await look(p, 'inputs-problems-si')
     // the link of a problem focuses its field
     await list.getByRole('link', { name: 'Recovery of the solute' }).click()
-    await expect.poll(() => p.evaluate(() => document.activeElement?.id)).toBe('field-recovery')
+    await expect.poll(() => p.evaluate(() => document.activeElement?.id), WAIT).toBe('field-recovery')
     // nothing was stored
     const stored = await storedStudy(p)
     expect((stored.inputs.gas as { flow: number }).flow).toBe(180)
@@ -105,7 +108,7 @@ describe('study inputs: nothing nonsensical is saved or run', () => {
     await p.getByTestId('input-problems').getByText('required: enter the solute in the gas').waitFor()
     await input(p, 'gas-flow').fill('12a')
     await p.getByTestId('input-problems').getByText('not a number: enter the gas flow').waitFor()
-    await expect.poll(() => p.getByTestId('run-design').isDisabled()).toBe(true)
+    await expect.poll(() => p.getByTestId('run-design').isDisabled(), WAIT).toBe(true)
     // with a new value in place, the run uses exactly what is on the screen
     await input(p, 'gas-flow').fill('200')
     await input(p, 'gas-solute').fill('1.5')
@@ -126,19 +129,19 @@ describe('study inputs: nothing nonsensical is saved or run', () => {
     await p.getByRole('radio', { name: "Henry's law" }).check()
     await p.getByTestId('eq-k').waitFor({ state: 'detached' })
     await p.getByRole('radio', { name: 'Constant K' }).check()
-    await expect.poll(() => input(p, 'eq-k').inputValue()).toBe('0.43')
+    await expect.poll(() => input(p, 'eq-k').inputValue(), WAIT).toBe('0.43')
     // a model tried for the first time starts blank, never with a made-up value
     await p.getByRole('radio', { name: 'Modified Raoult' }).check()
     await p.getByRole('radio', { name: 'Constant K' }).check()
-    await expect.poll(() => input(p, 'eq-k').inputValue()).toBe('0.43')
+    await expect.poll(() => input(p, 'eq-k').inputValue(), WAIT).toBe('0.43')
     await input(p, 'eq-k').fill('0.5')
     await p.getByTestId('run-design').click()
     await p.waitForURL(/\/column$/)
     await p.getByTestId('column-staging').waitFor()
     await p.getByTestId('tab-options').click()
     await p.getByTestId('pin-option').click()
-    await expect.poll(() => p.getByTestId('option-name').locator('input').inputValue()).toBe('Design · K 0.5 · 97 % · L/Lmin 1.5')
-    await expect(p.getByTestId('pin-run-inputs').innerText()).resolves.toMatch(/K 0\.5/)
+    await expect.poll(() => p.getByTestId('option-name').locator('input').inputValue(), WAIT).toBe('Design · K 0.5 · 97 % · L/Lmin 1.5')
+    await expect.poll(() => p.getByTestId('pin-run-inputs').innerText(), WAIT).toMatch(/K 0\.5/)
     await p.keyboard.press('Escape')
   })
 
@@ -161,20 +164,20 @@ describe('study inputs: nothing nonsensical is saved or run', () => {
     await p.getByRole('radio', { name: 'x–y table' }).check()
     await input(p, 'eq-table-temperature').fill('50')
     // column at the lean-solvent temperature, 20 °C
-    await expect.poll(() => p.getByTestId('table-temperature-warning').innerText()).toMatch(/measured at 50 °C but the column runs at 20 °C/)
+    await expect.poll(() => p.getByTestId('table-temperature-warning').innerText(), WAIT).toMatch(/measured at 50 °C but the column runs at 20 °C/)
     await input(p, 'eq-table-temperature').fill('21')
     await p.getByTestId('table-temperature-warning').waitFor({ state: 'detached' })
     await p.getByRole('radio', { name: 'Constant K' }).check()
-    await expect.poll(() => input(p, 'eq-k').inputValue()).toBe('0.5')
+    await expect.poll(() => input(p, 'eq-k').inputValue(), WAIT).toBe('0.5')
   })
 
   it('blank optional fields show the engine\'s default and each field its help with a typical range, in SI and US units', async () => {
     const p = s.page
     const hole = p.locator('#field-tray-holeDiameter')
     await hole.fill('')
-    await expect.poll(() => hole.getAttribute('placeholder')).toBe('default: 4.5')
-    await expect(p.locator('.v-input', { has: hole }).innerText()).resolves.toMatch(/\bmm\b/)
-    await expect(p.getByTestId('gas-flow').innerText()).resolves.toMatch(/Typical 10–5000 kmol\/h/)
+    await expect.poll(() => hole.getAttribute('placeholder'), WAIT).toBe('default: 4.5')
+    await expect.poll(() => p.locator('.v-input', { has: hole }).innerText(), WAIT).toMatch(/\bmm\b/)
+    await expect.poll(() => p.getByTestId('gas-flow').innerText(), WAIT).toMatch(/Typical 10–5000 kmol\/h/)
     await input(p, 'gas-flow').fill('-300')
     await p.getByTestId('input-problems').waitFor()
     await look(p, 'inputs-form-si')
@@ -182,10 +185,10 @@ describe('study inputs: nothing nonsensical is saved or run', () => {
     await setUnitSystem(p, 'US')
     await p.reload()
     await input(p, 'gas-flow').waitFor()
-    await expect.poll(() => input(p, 'gas-flow').isEnabled()).toBe(true)
-    await expect.poll(() => p.locator('#field-tray-holeDiameter').getAttribute('placeholder')).toBe('default: 0.1772')
-    await expect(p.locator('.v-input', { has: p.locator('#field-tray-holeDiameter') }).innerText()).resolves.toMatch(/\bin\b/)
-    await expect(p.getByTestId('gas-flow').innerText()).resolves.toMatch(/Typical 22–11000 lbmol\/h/)
+    await expect.poll(() => input(p, 'gas-flow').isEnabled(), WAIT).toBe(true)
+    await expect.poll(() => p.locator('#field-tray-holeDiameter').getAttribute('placeholder'), WAIT).toBe('default: 0.1772')
+    await expect.poll(() => p.locator('.v-input', { has: p.locator('#field-tray-holeDiameter') }).innerText(), WAIT).toMatch(/\bin\b/)
+    await expect.poll(() => p.getByTestId('gas-flow').innerText(), WAIT).toMatch(/Typical 22–11000 lbmol\/h/)
     // 300 kmol/h = 661.4 lbmol/h (1 lb = 0.45359237 kg exactly, NIST SP 811)
     await input(p, 'gas-flow').fill('-661.4')
     await p.getByTestId('input-problems').getByText('-661.4 lbmol/h: the gas flow must be positive').waitFor()

@@ -145,6 +145,8 @@ describe('economics in the person’s units', () => {
     const spacings = p.getByTestId('search-spacings')
     await inputMatches(spacings.locator('input'), (v) => v === '450, 500, 600, 750, 900', 'SI spacings in mm')
     await expect(spacings.innerText()).resolves.toMatch(/\(mm\)/)
+    const diameter = p.getByLabel('Largest diameter', { exact: true })
+    await inputMatches(diameter, (v) => v === '6', 'largest diameter 6 m')
 
     // cost-item sizes: the correlation in lb, ft, hp, gpm·ft^0.5 is shown in kg, m, kW, m³/h·m^0.5
     const shell = p.getByTestId('cost-size-shell')
@@ -168,9 +170,15 @@ describe('economics in the person’s units', () => {
     await p.getByTestId('unit-switch').getByRole('button', { name: 'US customary' }).click()
     await inputMatches(spacings.locator('input'), (v) => v === '18, 20, 24, 30, 36', 'US spacings in inches')
     await expect(spacings.innerText()).resolves.toMatch(/\(in\)/)
+    await inputMatches(diameter, (v) => v === '20', 'largest diameter 20 ft')
+    await inputMatches(p.getByLabel('Largest height', { exact: true }), (v) => v === '175', 'largest height 175 ft')
     await textMatches(shell, (t) => /\blb\b/.test(t) && !/\bkg\b/.test(t), 'shell size in lb')
     await textMatches(p.getByTestId('cost-size-pump'), (t) => /gpm·ft\^0\.5/.test(t), 'pump size in gpm·ft^0.5')
     await textMatches(p.getByTestId('optimum-summary'), (t) => /\bft\b/.test(t) && /\bin\b/.test(t), 'diameter in ft and spacing in in')
+    // optimising in US units uses the spacings shown: the optimum's spacing is a whole-inch one
+    await p.getByTestId('optimise').click()
+    await textMatches(p.getByTestId('optimum-summary'), (t) => /Tray spacing\s*(18|20|24|30|36) in\b/.test(t), 'optimum on a whole-inch spacing')
+    await inputMatches(spacings.locator('input'), (v) => v === '18, 20, 24, 30, 36', 'US spacings kept')
     await shot(p, 'units-economics-us')
     await p.setViewportSize({ width: 390, height: 844 })
     await shot(p, 'units-economics-us-390')

@@ -55,10 +55,13 @@ export const searchSpecFieldMeta: Record<string, { label: string; unit: string; 
 }
 
 /**
- * The tray spacings offered when none are set, per unit system [m]: 450–900 mm in SI and the
- * whole-inch spacings of US practice, 18, 20, 24, 30 and 36 in (common practice, no source).
+ * The limits offered when none are set, per unit system, in m: the schema's defaults in SI, and
+ * round values of US practice in US customary units: spacings of 18, 20, 24, 30 and 36 in, a
+ * largest diameter of 20 ft and a largest height of 175 ft (common practice, no source).
  */
-export const defaultTraySpacings = {
-  SI: [0.45, 0.5, 0.6, 0.75, 0.9],
-  US: [18, 20, 24, 30, 36].map((inch) => Number((inch * 0.0254).toFixed(6))),
+const IN = 0.0254
+const FT = 0.3048
+export const systemSearchDefaults = {
+  SI: { traySpacings: [0.45, 0.5, 0.6, 0.75, 0.9], maxDiameter: 6, maxHeight: 53 },
+  US: { traySpacings: [18, 20, 24, 30, 36].map((i) => Number((i * IN).toFixed(6))), maxDiameter: Number((20 * FT).toFixed(6)), maxHeight: Number((175 * FT).toFixed(6)) },
 } as const

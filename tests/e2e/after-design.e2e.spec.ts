@@ -334,20 +334,29 @@ describe('solvent allocation', () => {
 
     await signInAs(p, 'engineer')
     await p.getByRole('link', { name: /Solvent allocation/ }).click()
-    await p.getByTestId('alloc-units').waitFor()
+    // wait until both absorbers are listed, then choose only them (re-read until every box is right)
+    await p.getByTestId(`alloc-unit-${a.id}`).waitFor()
+    await p.getByTestId(`alloc-unit-${b.id}`).waitFor()
     const boxes = p.getByTestId('alloc-units').locator('[data-testid^="alloc-unit-"]')
-    const n = await boxes.count()
-    for (let i = 0; i < n; i++) {
-      const box = boxes.nth(i)
-      const want = [`alloc-unit-${a.id}`, `alloc-unit-${b.id}`].includes((await box.getAttribute('data-testid')) ?? '')
-      const input = box.locator('input[type=checkbox]')
-      if ((await input.isChecked()) !== want) await input.click()
-    }
+    const want = new Set([`alloc-unit-${a.id}`, `alloc-unit-${b.id}`])
+    await expect
+      .poll(async () => {
+        let ok = true
+        for (const box of await boxes.all()) {
+          const input = box.locator('input[type=checkbox]')
+          if ((await input.isChecked()) !== want.has((await box.getAttribute('data-testid')) ?? '')) {
+            await input.click()
+            ok = false
+          }
+        }
+        return ok
+      }, { timeout: 20000 })
+      .toBe(true)
     await p.getByTestId('alloc-limit').locator('input').fill((Math.round(designTotal * 0.8 * 1000) / 1000).toString())
     await p.getByTestId('alloc-name').locator('input').fill(`Summer supply ${t}`)
     await p.getByTestId('alloc-solve').click()
     await p.getByTestId('alloc-result').waitFor()
-    await expect(p.getByTestId('alloc-split').locator('tbody tr').count()).resolves.toBe(2)
+    await expect.poll(() => p.getByTestId('alloc-split').locator('tbody tr').count(), { timeout: 20000 }).toBe(2)
     await expect(p.getByTestId('alloc-shadow').innerText()).resolves.toMatch(/per m³\/h/)
     await p.getByTestId('alloc-result').locator('.apexcharts-svg').waitFor()
     await p.getByTestId('alloc-saved').getByText(`Summer supply ${t}`).waitFor()

@@ -235,10 +235,10 @@ const operating: Section = {
     doc.moveDown(0.6)
     table(doc,
       [
-        { title: 'Month', width: 48 }, { title: `Gas [${op.flowUnit}]`, width: 50, align: 'right' }, { title: `Solvent [${op.flowUnit}]`, width: 55, align: 'right' },
+        { title: 'Month', width: 45 }, { title: `Gas [${op.flowUnit}]`, width: 58, align: 'right' }, { title: `Solvent [${op.flowUnit}]`, width: 58, align: 'right' },
         { title: `Solvent needed [${op.flowUnit}]`, width: 62, align: 'right' }, { title: 'Recovery expected [%]', width: 56, align: 'right' },
         { title: 'Recovery measured [%]', width: 56, align: 'right' }, { title: 'Efficiency achieved / design [%]', width: 72, align: 'right' },
-        { title: 'Operating window', width: 96 },
+        { title: 'Operating window', width: 86 },
       ],
       op.months.map((x) => [
         x.month, fmt(x.gasFlow, 4), fmt(x.solventFlow, 4), c(x.solventNeeded), fmt(x.expectedRecovery, 4), c(x.measuredRecovery),

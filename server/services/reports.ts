@@ -129,11 +129,20 @@ async function operatingPart(siteId: number, studyId: number, u: DisplayUnits): 
 }
 
 /**
+ * Sections other features add to the report (e.g. the confidence of the result): each is a
+ * titled table with notes, printed after the operating log and given its own sheet in the
+ * workbook. Add a feature's section here; return nothing when it does not apply to the study.
+ */
+async function featureSections(ctx: { siteId: number; studyId: number; units: DisplayUnits; design: DesignResult | null }): Promise<ReportSection[]> {
+  void ctx
+  return []
+}
+
+/**
  * Gather the report.
  * @param reader the person asking: their name is printed and their unit system used
- * @param sections sections other features add (rendered after the operating log)
  */
-export async function buildReport(siteId: number, studyId: number, reader: { name: string; unitSystem?: UnitSystem }, sections: ReportSection[] = []): Promise<ReportModel> {
+export async function buildReport(siteId: number, studyId: number, reader: { name: string; unitSystem?: UnitSystem }): Promise<ReportModel> {
   const u = new DisplayUnits(reader.unitSystem ?? 'SI')
   const s = await findStudy(siteId, studyId)
   const site = await Site.findByPk(siteId, { attributes: ['id', 'name'] })
@@ -239,7 +248,7 @@ export async function buildReport(siteId: number, studyId: number, reader: { nam
     options: optionRows,
     recommendedOptionId: s.recommendedOptionId,
     operating: s.status === 'approved' ? await operatingPart(siteId, studyId, u) : null,
-    sections,
+    sections: await featureSections({ siteId, studyId, units: u, design: designResult }),
     review: events.map((e) => ({ kind: e.kind, who: who.get(e.userId) ?? `user ${e.userId}`, at: e.createdAt, body: e.body })),
     // The report's own vessel caution stands for the engine's wordings of the same warning.
     cautions: [VESSEL_CAUTION, ...new Set(cautions.filter((c) => c !== VESSEL_CAUTION)), REPORT_CAUTION],

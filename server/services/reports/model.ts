@@ -162,3 +162,6 @@ export const COST_GAP_PARTS = [
   { key: 'prices', label: 'Prices' },
   { key: 'other', label: 'Other' },
 ] as const satisfies readonly { key: keyof OperatingMonth; label: string }[]
+
+/** Review events in words. */
+export const REVIEW_WORDS: Record<string, string> = { comment: 'Comment', submit: 'Submitted for review', approve: 'Approved', return: 'Returned for changes', reopen: 'Reopened' }

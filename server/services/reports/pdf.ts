@@ -1,5 +1,5 @@
 import PDFDocument from 'pdfkit'
-import type { ReportModel, ReportSection } from './model.ts'
+import { REVIEW_WORDS, type ReportModel, type ReportSection } from './model.ts'
 import { fmt, money } from './format.ts'
 import {
   INK, MARGIN, MUTED, RULE, STATUS_INK, bottom, contentWidth, dateTime, ensure, groupTable, heading, keyValues, note, pdfText, sheetBlock, table, type Doc,
@@ -18,8 +18,6 @@ interface Section {
   key: string
   render(doc: Doc, m: ReportModel): void
 }
-
-const REVIEW_WORDS: Record<string, string> = { comment: 'Comment', submit: 'Submitted for review', approve: 'Approved', return: 'Returned for changes', reopen: 'Reopened' }
 
 const unitsName = (m: ReportModel) => (m.unitSystem === 'US' ? 'US customary units' : 'SI units')
 
@@ -139,9 +137,9 @@ const checks: Section = {
     if (!m.design) return note(doc, 'No design run exists for this study.')
     const limit = (c: (typeof m.design.checks)[number]) => `${c.direction === 'min' ? '>= ' : c.direction === 'max' ? '<= ' : ''}${fmt(c.limit, 4)}`
     table(doc,
-      [{ title: 'Check', width: 190 }, { title: 'Value', width: 80, align: 'right' }, { title: 'Limit', width: 80, align: 'right' }, { title: 'Unit', width: 60 }, { title: 'Result', width: 85 }],
-      m.design.checks.map((c) => [c.label, fmt(c.value, 4), limit(c), c.unit, c.status.toUpperCase()]),
-      (i, j) => (j === 4 ? STATUS_INK[m.design!.checks[i]!.status] : undefined))
+      [{ title: 'Check', width: 190 }, { title: 'Value', width: 80, align: 'right' }, { title: 'Limit', width: 80, align: 'right' }, { title: '', width: 8 }, { title: 'Unit', width: 52 }, { title: 'Result', width: 85 }],
+      m.design.checks.map((c) => [c.label, fmt(c.value, 4), limit(c), '', c.unit, c.status.toUpperCase()]),
+      (i, j) => (j === 5 ? STATUS_INK[m.design!.checks[i]!.status] : undefined))
     for (const c of m.design.checks.filter((x) => x.status !== 'pass' && x.advice)) note(doc, `${c.label}: ${c.advice}`)
   },
 }

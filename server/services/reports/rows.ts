@@ -291,6 +291,7 @@ const PAIRED: [string, string, number][] = [
   ['kW', 'hp', HP],
   ['m3/yr', 'gal/yr', GAL],
   ['kg/yr', 'lb/yr', LB],
+  ['kWh/yr', 'kWh/yr', 1],
 ]
 
 /** Cost-item sizes in the reader's system where the unit converts; a correlation's own compound size unit stays as it is. */

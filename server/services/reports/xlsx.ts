@@ -1,5 +1,5 @@
 import ExcelJS from 'exceljs'
-import { COST_GAP_PARTS, type ReportModel, type Row, type RowGroup } from './model.ts'
+import { COST_GAP_PARTS, REVIEW_WORDS, type ReportModel, type Row, type RowGroup } from './model.ts'
 import { MONEY_FMT, numFmt } from './format.ts'
 
 /**
@@ -30,7 +30,8 @@ function add(ws: ExcelJS.Worksheet, columns: Col[], values: Record<string, unkno
   columns.forEach((c, i) => {
     const cell = row.getCell(i + 1)
     if (typeof cell.value !== 'number') return
-    cell.numFmt = c.fmt === 'money' ? MONEY_FMT : c.fmt && c.fmt !== 'auto' ? c.fmt : numFmt(cell.value, digits)
+    // counts and whole numbers without decimals; other numbers to their significant digits
+    cell.numFmt = c.fmt === 'money' ? MONEY_FMT : c.fmt && c.fmt !== 'auto' ? c.fmt : Number.isInteger(cell.value) ? '#,##0' : numFmt(cell.value, digits)
   })
   return row
 }
@@ -88,7 +89,7 @@ export async function renderXlsx(m: ReportModel): Promise<Buffer> {
     ['Cost basis in force', m.costBasisInForce ? m.costBasisInForce.version : 'none'],
     ['Engine version', m.design?.run.engineVersion ?? m.optimise?.run.engineVersion ?? ''],
   ]
-  for (const [label, value] of about) inputs.addRow({ group: 'Report', label, value })
+  for (const [label, value] of about) add(inputs, VALUE_COLS, { group: 'Report', label, value })
   if (m.inputsNote && m.inputs.length) inputs.addRow({ group: 'Report', label: m.inputsNote })
 
   // ---- Design summary: the data sheet and the column screen
@@ -205,10 +206,10 @@ export async function renderXlsx(m: ReportModel): Promise<Buffer> {
   }
 
   // ---- Sign-off history
-  const revCols: Col[] = [{ header: 'When (UTC)', key: 'at', width: 20 }, { header: 'Event', key: 'kind', width: 10 }, { header: 'Who', key: 'who', width: 24 }, { header: 'Comment', key: 'body', width: 70 }]
+  const revCols: Col[] = [{ header: 'When (UTC)', key: 'at', width: 20 }, { header: 'Event', key: 'kind', width: 20 }, { header: 'Who', key: 'who', width: 24 }, { header: 'Comment', key: 'body', width: 70 }]
   const rev = sheet(wb, 'Sign-off', revCols)
   for (const e of m.review) {
-    const row = rev.addRow({ at: e.at, kind: e.kind, who: e.who, body: e.body })
+    const row = rev.addRow({ at: e.at, kind: REVIEW_WORDS[e.kind] ?? e.kind, who: e.who, body: e.body })
     row.getCell(1).numFmt = 'yyyy-mm-dd hh:mm'
   }
 

@@ -16,18 +16,18 @@ export function reportRoutes(router: Router): Router {
   return defineRoutes(router, [
     {
       method: 'get', path: '/sites/:siteId/studies/:studyId/report.pdf', access: { kind: 'site', roles: ANY_ROLE },
-      summary: 'Printable study report (PDF) from the newest design and optimisation runs',
+      summary: 'Printable study report (PDF) from the newest design and optimisation runs, in the unit system of the reader',
       doc: { response: 'pdf' },
       handler: async (req, res) => {
-        sendFile(res, await svc.studyReportPdf(req.site!.id, parse(idParam, req.params.studyId, 'params.studyId'), req.user!.name), 'application/pdf')
+        sendFile(res, await svc.studyReportPdf(req.site!.id, parse(idParam, req.params.studyId, 'params.studyId'), req.user!), 'application/pdf')
       },
     },
     {
       method: 'get', path: '/sites/:siteId/studies/:studyId/export.xlsx', access: { kind: 'site', roles: ANY_ROLE },
-      summary: 'The study as a workbook: Inputs, Design, Checks, Costs, Curves, Options',
+      summary: 'The study as a workbook: one sheet per part, full-precision numbers in the unit system of the reader',
       doc: { response: 'xlsx' },
       handler: async (req, res) => {
-        sendFile(res, await svc.studyReportXlsx(req.site!.id, parse(idParam, req.params.studyId, 'params.studyId'), req.user!.name), 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
+        sendFile(res, await svc.studyReportXlsx(req.site!.id, parse(idParam, req.params.studyId, 'params.studyId'), req.user!), 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
       },
     },
   ])

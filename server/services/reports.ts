@@ -1,161 +1,41 @@
 import { Run, ReviewEvent, Site } from '../db/models/index.ts'
+import { AppError } from '../errors.ts'
 import { findStudy, listOptions } from './studies.ts'
 import { userNames } from './people.ts'
 import { basisInForce } from './cost-bases.ts'
-import { QUANTITY_KINDS } from '../../shared/units.ts'
+import { siteLibrary } from './runs.ts'
+import { caseFromRequest } from './engine-gateway.ts'
+import { listEntries } from './operating.ts'
 import { VESSEL_CAUTION } from '../engine/vessel/shell.ts'
-import type { DesignResult, DesignSummary } from '../engine/contract.ts'
+import type { CaseSI } from '../engine/case.ts'
+import type { DesignResult } from '../engine/contract.ts'
 import type { CostBreakdown } from '../engine/costing/index.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { OptimiseResult, CurvePoint } from '../engine/optimisation/core.ts'
-import type { ReportModel, RunMeta, ValueRow, CostRow, CurveSeries, ReviewRow } from './reports/model.ts'
-import { fmt } from './reports/format.ts'
+import type { ReportModel, RunMeta, Row, RowGroup, CostRow, CurveSeries, ReviewRow, OperatingPart, ReportSection } from './reports/model.ts'
+import { DisplayUnits, plain, type UnitSystem } from './reports/units.ts'
+import { inputGroups, summaryGroups, dataSheetGroups, checkRows, costRows } from './reports/rows.ts'
 import { renderPdf } from './reports/pdf.ts'
 import { studyConfidence } from './reports/confidence.ts'
 import { renderXlsx } from './reports/xlsx.ts'
 
-export type { ReportModel, RunMeta, ValueRow, CostRow, CurveSeries, ReviewRow }
+export type { ReportModel, RunMeta, Row, RowGroup, CostRow, CurveSeries, ReviewRow, OperatingPart, ReportSection }
 export { fmt, money } from './reports/format.ts'
 
 /**
  * Study reports: one data model gathered from the database (study, newest design and optimise
- * runs, options, sign-off history) and rendered as a printable PDF or a spreadsheet.
+ * runs, options, operating log of an approved study, sign-off history), in the reader's unit
+ * system with the screens' labels, rendered as a printable PDF or a workbook.
  */
 
 /** Always printed: the vessel numbers are for costing, not for construction (the engine's one caution text). */
 export { VESSEL_CAUTION }
 
+/** Printed with every report: the results are preliminary and what governs is local code. */
+export const REPORT_CAUTION =
+  'Study estimate: the sizes, pressures and costs in this report are preliminary. Pressure equipment, relief, area classification and the handling of flammable, toxic or asphyxiant gases are governed by the local codes and regulations and must be designed and signed by licensed engineers.'
+
 type PricedDesign = DesignResult & { totalAnnualCost?: number; costBreakdown?: CostBreakdown }
-
-const U = QUANTITY_KINDS
-/** Units of bare numbers in a case, by field path (the case units). */
-const CASE_UNITS: Record<string, string> = {
-  'gas.flow': U.molarFlow.caseUnit,
-  'gas.temperature': U.temperature.caseUnit,
-  'gas.pressure': U.pressure.caseUnit,
-  'gas.soluteMoleFraction': 'mol/mol',
-  'gas.carrierMolarMass': U.molarMass.caseUnit,
-  'gas.viscosity': U.gasViscosity.caseUnit,
-  'solute.molarMass': U.molarMass.caseUnit,
-  'solvent.temperature': U.temperature.caseUnit,
-  'solvent.soluteMoleFraction': 'mol/mol',
-  'solvent.molarMass': U.molarMass.caseUnit,
-  'solvent.density': U.density.caseUnit,
-  'solvent.viscosity': U.viscosity.caseUnit,
-  'solvent.surfaceTension': U.surfaceTension.caseUnit,
-  'equilibrium.K': '-',
-  'equilibrium.Hcp': U.henrySolubility.caseUnit,
-  'equilibrium.B': U.inverseTemperatureSlope.caseUnit,
-  'equilibrium.gammaInf': '-',
-  'equilibrium.vapourPressure': U.pressure.caseUnit,
-  recovery: '-',
-  solventFactor: 'L/Lmin',
-  'tray.holeDiameter': U.smallLength.caseUnit,
-  'tray.holePitch': U.smallLength.caseUnit,
-  'tray.thickness': U.smallLength.caseUnit,
-  'tray.spacing': U.length.caseUnit,
-  'tray.floodFraction': '-',
-  'tray.foamingFactor': '-',
-  'tray.weirHeight': U.smallLength.caseUnit,
-  'tray.downcomerClearance': U.smallLength.caseUnit,
-  'efficiency.value': '-',
-  'column.temperature': U.temperature.caseUnit,
-  'column.diameterStep': U.length.caseUnit,
-  'column.topAllowance': U.length.caseUnit,
-  'column.bottomAllowance': U.length.caseUnit,
-  'vessel.designPressure': `${U.pressureGauge.caseUnit} (gauge)`,
-  'vessel.allowableStress': U.stress.caseUnit,
-  'vessel.jointEfficiency': '-',
-  'vessel.corrosionAllowance': U.smallLength.caseUnit,
-  'vessel.materialDensity': U.density.caseUnit,
-}
-
-/** Flatten a case into (path, value, unit) rows for display. */
-export function inputRows(inputs: unknown): ValueRow[] {
-  const out: ValueRow[] = []
-  const walk = (v: unknown, path: string) => {
-    if (v === null || v === undefined) return
-    if (typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean') {
-      out.push({ key: path, label: path, value: typeof v === 'boolean' ? String(v) : v, unit: typeof v === 'number' ? (CASE_UNITS[path] ?? '-') : '' })
-      return
-    }
-    if (Array.isArray(v)) {
-      if (path === 'equilibrium.points') {
-        out.push({ key: path, label: path, value: `${v.length} x-y points (table)`, unit: 'mol/mol' })
-        return
-      }
-      v.forEach((item, i) => walk(item, `${path}.${i}`))
-      return
-    }
-    if (typeof v === 'object') {
-      const o = v as Record<string, unknown>
-      if (typeof o.value === 'number' && typeof o.unit === 'string' && Object.keys(o).length === 2) {
-        out.push({ key: path, label: path, value: o.value, unit: o.unit })
-        return
-      }
-      for (const [k, child] of Object.entries(o)) walk(child, path ? `${path}.${k}` : k)
-    }
-  }
-  walk(inputs, '')
-  return out
-}
-
-/** Design summary rows: key, label, value in the display unit, unit. */
-const SUMMARY_ROWS: { key: keyof DesignSummary & string; label: string; unit: string; scale?: number }[] = [
-  { key: 'recovery', label: 'Recovery (target)', unit: '%', scale: 100 },
-  { key: 'achievedRecovery', label: 'Recovery reached with the trays', unit: '%', scale: 100 },
-  { key: 'theoreticalStages', label: 'Theoretical stages', unit: '-' },
-  { key: 'overallEfficiency', label: 'Overall tray efficiency', unit: '%', scale: 100 },
-  { key: 'actualTrays', label: 'Actual trays', unit: '-' },
-  { key: 'selectedDiameter', label: 'Column diameter (selected)', unit: 'm' },
-  { key: 'diameter', label: 'Column diameter (calculated)', unit: 'm' },
-  { key: 'traySpacing', label: 'Tray spacing', unit: 'm' },
-  { key: 'columnHeight', label: 'Column height (tangent to tangent)', unit: 'm' },
-  { key: 'percentFlood', label: 'Percent of flood', unit: '%' },
-  { key: 'floodFraction', label: 'Design fraction of flood', unit: '-' },
-  { key: 'pressureDropPerTray', label: 'Pressure drop per tray', unit: 'Pa' },
-  { key: 'columnPressureDrop', label: 'Column pressure drop', unit: 'Pa' },
-  { key: 'minimumSolventFlow', label: 'Minimum solvent flow', unit: 'kmol/h' },
-  { key: 'solventFlow', label: 'Solvent flow', unit: 'kmol/h' },
-  { key: 'solventFactor', label: 'Solvent factor L/Lmin', unit: '-' },
-  { key: 'absorptionFactor', label: 'Absorption factor', unit: '-' },
-  { key: 'solventMassFlow', label: 'Solvent mass flow', unit: 'kg/h' },
-  { key: 'solventVolumetricFlow', label: 'Solvent volumetric flow', unit: 'm³/h' },
-  { key: 'gasFlow', label: 'Gas flow (inlet)', unit: 'kmol/h' },
-  { key: 'gasVolumetricFlow', label: 'Gas volumetric flow (inlet)', unit: 'm³/s' },
-  { key: 'gasDensity', label: 'Gas density', unit: 'kg/m³' },
-  { key: 'outletGasSoluteMoleFraction', label: 'Solute in cleaned gas', unit: 'mol/mol' },
-  { key: 'richSolventSoluteMoleFraction', label: 'Solute in rich solvent', unit: 'mol/mol' },
-  { key: 'soluteInGas', label: 'Solute in feed gas', unit: 'kg/h' },
-  { key: 'soluteAbsorbed', label: 'Solute recovered', unit: 'kg/h' },
-  { key: 'soluteLost', label: 'Solute lost with the gas', unit: 'kg/h' },
-  { key: 'flowParameter', label: 'Flow parameter', unit: '-' },
-  { key: 'capacityFactor', label: 'Capacity factor', unit: 'm/s' },
-  { key: 'floodingVelocity', label: 'Flooding velocity', unit: 'm/s' },
-  { key: 'downcomerAreaFraction', label: 'Downcomer area fraction', unit: '-' },
-  { key: 'holeAreaFraction', label: 'Hole area / active area', unit: '-' },
-  { key: 'operatingPressure', label: 'Operating pressure', unit: 'kPa', scale: 1e-3 },
-  { key: 'designPressure', label: 'Design pressure (gauge)', unit: 'kPa', scale: 1e-3 },
-  { key: 'shellThickness', label: 'Shell thickness (preliminary)', unit: 'mm', scale: 1e3 },
-  { key: 'shellMass', label: 'Shell and heads mass (preliminary)', unit: 'kg' },
-]
-
-export function summaryRows(s: DesignSummary): ValueRow[] {
-  const out: ValueRow[] = []
-  for (const r of SUMMARY_ROWS) {
-    const v = s[r.key]
-    if (typeof v === 'number' && Number.isFinite(v)) out.push({ key: r.key, label: r.label, value: v * (r.scale ?? 1), unit: r.unit })
-  }
-  return out
-}
-
-function costRows(b: CostBreakdown): CostRow[] {
-  const rows: CostRow[] = b.capital.map((c) => ({
-    key: c.key, label: c.label, kind: 'capital' as const, size: `${fmt(c.size, 4)} ${c.sizeUnit}`, purchased: c.purchased, installed: c.installed, annual: c.annual,
-  }))
-  for (const o of b.operating) rows.push({ key: o.key, label: o.label, kind: 'operating', size: `${fmt(o.quantity, 4)} ${o.quantityUnit}`, purchased: null, installed: null, annual: o.annual })
-  return rows
-}
 
 const CAPITAL_KEYS = new Set(['shell', 'platforms', 'trays', 'pump', 'motor', 'blower'])
 
@@ -175,8 +55,8 @@ function series(key: 'recovery' | 'solventFactor', pts: CurvePoint[], optimumX: 
   return {
     key,
     title: key === 'recovery' ? 'Total annualised cost vs recovery' : 'Total annualised cost vs solvent factor',
-    xLabel: key === 'recovery' ? 'Recovery' : 'Solvent factor L/Lmin',
-    xUnit: key === 'recovery' ? '%' : '-',
+    xLabel: key === 'recovery' ? 'Recovery' : 'Solvent factor L / Lmin',
+    xUnit: key === 'recovery' ? '%' : '×',
     points,
     infeasible: pts.length - points.length,
     optimumX: optimumX * scale,
@@ -191,7 +71,81 @@ function meta(r: Run, who: Map<number, string>): RunMeta {
   }
 }
 
-export async function buildReport(siteId: number, studyId: number, generatedBy: string): Promise<ReportModel> {
+/** The case a run used, normalised (defaults and library values filled); null when its inputs do not form a case. */
+function caseOf(inputs: unknown, library: Awaited<ReturnType<typeof siteLibrary>>): CaseSI | null {
+  try {
+    return caseFromRequest(inputs, library, 'inputs')
+  } catch (e) {
+    if (e instanceof AppError) return null
+    throw e
+  }
+}
+
+/** The operating log of an approved study: each month rated and priced, its cost gap split into causes. */
+async function operatingPart(siteId: number, studyId: number, u: DisplayUnits): Promise<OperatingPart | null> {
+  let log: Awaited<ReturnType<typeof listEntries>>
+  try {
+    log = await listEntries(siteId, studyId)
+  } catch (e) {
+    if (!(e instanceof AppError)) throw e
+    return { designRunId: 0, costBasisVersion: null, flowUnit: u.unit('molarFlow'), months: [], drift: null, issue: e.message, toDate: { actual: 0, reference: 0, gap: 0 } }
+  }
+  if (!log.design || !log.months.length) return null
+  const mon = log.monitoring
+  const f = (kmolh: number) => u.fromSI('molarFlow', kmolh / 3.6)
+  const months = log.months.map((m, i) => {
+    const r = mon?.months[i]
+    const g = r?.costGap ?? null
+    return {
+      month: m.month,
+      gasFlow: f(log.entries[i]!.gasFlow),
+      solventFlow: f(log.entries[i]!.solventFlow),
+      solventNeeded: r?.solventNeeded == null ? null : f(r.solventNeeded),
+      expectedRecovery: r ? r.expectedRecovery * 100 : NaN,
+      measuredRecovery: m.recovery === null ? null : m.recovery * 100,
+      achievedEfficiency: r?.achievedEfficiency == null ? null : r.achievedEfficiency * 100,
+      designEfficiency: r ? r.designEfficiency * 100 : NaN,
+      percentFlood: r ? r.percentFlood : m.percentFloodEstimate,
+      insideWindow: r ? r.insideWindow : true,
+      outside: r ? r.violated.map((v) => (v === 'downcomerBackup' ? 'downcomer backup' : v)) : [],
+      reference: g ? g.reference : null,
+      actual: m.actual.total,
+      gap: g ? g.gap : null,
+      prices: g ? g.prices : null,
+      throughput: g ? g.throughput : null,
+      excessSolvent: g ? g.excessSolvent : null,
+      efficiencyLoss: g ? g.efficiencyLoss : null,
+      other: g ? g.other : null,
+    }
+  })
+  const sum = (k: 'actual' | 'reference' | 'gap') => months.reduce((a, m) => a + (m[k] ?? 0), 0)
+  return {
+    designRunId: log.design.runId,
+    costBasisVersion: log.design.costBasisVersion,
+    flowUnit: u.unit('molarFlow'),
+    months: months.map((m) => ({ ...m, expectedRecovery: Number.isFinite(m.expectedRecovery) ? m.expectedRecovery : 0, designEfficiency: Number.isFinite(m.designEfficiency) ? m.designEfficiency : 0 })),
+    drift: mon?.drift.message ?? null,
+    issue: log.monitoringIssue,
+    toDate: { actual: sum('actual'), reference: sum('reference'), gap: sum('gap') },
+  }
+}
+
+/**
+ * Sections other features add to the report (e.g. the confidence of the result): each is a
+ * titled table with notes, printed after the operating log and given its own sheet in the
+ * workbook. Add a feature's section here; return nothing when it does not apply to the study.
+ */
+async function featureSections(ctx: { siteId: number; studyId: number; units: DisplayUnits; design: DesignResult | null }): Promise<ReportSection[]> {
+  void ctx
+  return []
+}
+
+/**
+ * Gather the report.
+ * @param reader the person asking: their name is printed and their unit system used
+ */
+export async function buildReport(siteId: number, studyId: number, reader: { name: string; unitSystem?: UnitSystem }): Promise<ReportModel> {
+  const u = new DisplayUnits(reader.unitSystem ?? 'SI')
   const s = await findStudy(siteId, studyId)
   const site = await Site.findByPk(siteId, { attributes: ['id', 'name'] })
   const [designRun, optRun] = await Promise.all([
@@ -201,71 +155,105 @@ export async function buildReport(siteId: number, studyId: number, generatedBy: 
   const events = await ReviewEvent.findAll({ where: { studyId }, order: [['id', 'ASC']] })
   const who = await userNames([designRun?.createdBy ?? null, optRun?.createdBy ?? null, ...events.map((e) => e.userId)])
   const opt = optRun ? (optRun.result as OptimiseResult) : null
+  const library = await siteLibrary(siteId)
 
   let design: ReportModel['design'] = null
+  let designResult: DesignResult | null = null
+  let designInputs: unknown = s.inputs
   let breakdown: CostBreakdown | null = null
   let cautions: string[] = []
   if (designRun) {
     const r = designRun.result as PricedDesign
-    design = { run: meta(designRun, who), source: `design run #${designRun.id}`, summary: summaryRows(r.summary), raw: r.summary, checks: r.checks, warnings: r.warnings.map((w) => w.message) }
+    designResult = r
+    designInputs = designRun.inputs
+    design = { run: meta(designRun, who), source: `design run #${designRun.id}`, groups: summaryGroups(r, u), raw: r.summary, checks: checkRows(r.checks, u), warnings: r.warnings.map((w) => w.message) }
     breakdown = r.costBreakdown ?? null
     cautions = r.cautions
   } else if (optRun && opt) {
     const d = opt.optimum.design
-    design = { run: meta(optRun, who), source: `the optimum of optimisation run #${optRun.id}`, summary: summaryRows(d.summary), raw: d.summary, checks: d.checks, warnings: d.warnings.map((w) => w.message) }
+    designResult = d
+    designInputs = optRun.inputs
+    design = { run: meta(optRun, who), source: `the optimum of optimisation run #${optRun.id}`, groups: summaryGroups(d, u), raw: d.summary, checks: checkRows(d.checks, u), warnings: d.warnings.map((w) => w.message) }
     breakdown = opt.optimum.breakdown
+    cautions = d.cautions
   }
   if (opt) cautions = [...cautions, ...opt.cautions]
 
+  const studyCase = caseOf(s.inputs, library)
+  const designCase = designResult ? caseOf(designInputs, library) : null
+  if (studyCase) cautions = [...cautions, ...studyCase.cautions]
+
   const options = await listOptions(studyId)
-  const optionRows = options.map((o) => ({ ...o, tac: o.summary?.totalAnnualCost ?? null }))
+  const optionRows = options.map((o) => ({
+    ...o,
+    tac: o.summary?.totalAnnualCost ?? null,
+    diameter: typeof o.summary?.selectedDiameter === 'number' ? u.fromSI('length', o.summary.selectedDiameter) : null,
+  }))
 
   const currentInputs = JSON.stringify(s.inputs)
   const inputsNote = designRun && JSON.stringify(designRun.inputs) !== currentInputs
     ? `The study's inputs changed after design run #${designRun.id}; the design below is for the inputs of that run.`
-    : null
+    : studyCase ? null : "The study's inputs do not yet form a complete case; the form shows what is missing."
 
   const currency = breakdown?.currency ?? opt?.optimum.breakdown.currency ?? ''
-  const generatedAt = new Date()
   const inForce = await basisInForce(siteId)
+  const o = opt?.optimum
+  const optRows: Row[] = o
+    ? [
+        plain('recovery', 'Recovery of the solute', o.recovery * 100, '%'),
+        plain('solventFactor', 'Solvent factor L / Lmin', o.solventFactor, '×', 3),
+        u.row('traySpacing', 'Tray spacing', 'length', o.traySpacing, 3),
+        plain('floodFraction', 'Design approach to flood', o.floodFraction * 100, '%', 3),
+        plain('actualTrays', 'Actual trays', o.actualTrays, ''),
+        u.row('selectedDiameter', 'Diameter, selected', 'length', o.selectedDiameter, 3),
+      ]
+    : []
   return {
-    generatedAt,
+    generatedAt: new Date(),
+    generatedBy: reader.name,
+    unitSystem: u.system,
     costBasisInForce: inForce ? { version: inForce.version, effectiveDate: inForce.effectiveDate } : null,
-    generatedBy,
     site: { id: siteId, name: site?.name ?? `Site ${siteId}` },
     study: {
       id: s.id, name: s.name, description: s.description, status: s.status, revision: s.revision,
       ownerName: (s as typeof s & { owner?: { name: string } }).owner?.name ?? '', updatedAt: s.updatedAt,
     },
-    inputs: inputRows(s.inputs),
+    dataSheet: designResult && designCase ? dataSheetGroups(designCase, designResult, u) : [],
+    inputs: studyCase ? inputGroups(studyCase, s.inputs, u) : [],
     inputsNote,
     design,
+    profile: designResult
+      ? {
+          methodNote: designResult.profile.methodNote ?? '',
+          theoreticalStages: designResult.profile.theoreticalStages ?? designResult.summary.theoreticalStages,
+          lastStageFraction: designResult.profile.lastStageFraction ?? 1,
+          stages: designResult.profile.stages.map((p) => ({ stage: p.stage, x: p.x, y: p.y })),
+          equilibrium: designResult.profile.equilibriumCurve.map((p) => ({ x: p.x, y: p.y })),
+          operating: designResult.profile.operatingLine.map((p) => ({ x: p.x, y: p.y })),
+        }
+      : null,
     costs: breakdown
       ? {
-          currency: breakdown.currency, costIndex: breakdown.costIndex, rows: costRows(breakdown), annualisedCapital: breakdown.annualisedCapital,
+          currency: breakdown.currency, costIndex: breakdown.costIndex, rows: costRows(breakdown, u), annualisedCapital: breakdown.annualisedCapital,
           operatingCost: breakdown.operatingCost, totalAnnualCost: breakdown.totalAnnualCost, costPerKgRecovered: breakdown.costPerKgRecovered,
           soluteRecoveredPerYear: breakdown.soluteRecoveredPerYear, capitalRecoveryFactor: breakdown.capitalRecoveryFactor, installedCapital: breakdown.installedCapital,
         }
       : null,
-    optimise: optRun && opt
-      ? {
-          run: meta(optRun, who), recovery: opt.optimum.recovery, solventFactor: opt.optimum.solventFactor, traySpacing: opt.optimum.traySpacing,
-          floodFraction: opt.optimum.floodFraction, actualTrays: opt.optimum.actualTrays, selectedDiameter: opt.optimum.selectedDiameter,
-          totalAnnualCost: opt.optimum.totalAnnualCost, evaluations: opt.evaluations,
-        }
-      : null,
-    curves: opt
+    optimise: optRun && o ? { run: meta(optRun, who), rows: optRows, totalAnnualCost: o.totalAnnualCost, evaluations: opt.evaluations } : null,
+    curves: opt && o
       ? [
-          series('recovery', opt.curves.recovery, opt.optimum.recovery, opt.optimum.totalAnnualCost),
-          series('solventFactor', opt.curves.solventFactor, opt.optimum.solventFactor, opt.optimum.totalAnnualCost),
+          series('recovery', opt.curves.recovery, o.recovery, o.totalAnnualCost),
+          series('solventFactor', opt.curves.solventFactor, o.solventFactor, o.totalAnnualCost),
         ]
       : [],
     currency,
     options: optionRows,
     recommendedOptionId: s.recommendedOptionId,
+    operating: s.status === 'approved' ? await operatingPart(siteId, studyId, u) : null,
+    sections: await featureSections({ siteId, studyId, units: u, design: designResult }),
     review: events.map((e) => ({ kind: e.kind, who: who.get(e.userId) ?? `user ${e.userId}`, at: e.createdAt, body: e.body })),
     // The report's own vessel caution stands for the engine's wordings of the same warning.
-    cautions: [VESSEL_CAUTION, ...new Set(cautions.filter((c) => c !== VESSEL_CAUTION))],
+    cautions: [VESSEL_CAUTION, ...new Set(cautions.filter((c) => c !== VESSEL_CAUTION)), REPORT_CAUTION],
     confidence: design ? await studyConfidence(siteId, designRun ? designRun.inputs : s.inputs, inForce?.data as CostBasisData | undefined) : null,
   }
 }
@@ -281,12 +269,12 @@ export function reportFileName(m: ReportModel, ext: 'pdf' | 'xlsx'): string {
   return `${base || `study-${m.study.id}`}.${ext}`
 }
 
-export async function studyReportPdf(siteId: number, studyId: number, generatedBy: string): Promise<{ fileName: string; body: Buffer }> {
-  const m = await buildReport(siteId, studyId, generatedBy)
+export async function studyReportPdf(siteId: number, studyId: number, reader: { name: string; unitSystem: UnitSystem }): Promise<{ fileName: string; body: Buffer }> {
+  const m = await buildReport(siteId, studyId, reader)
   return { fileName: reportFileName(m, 'pdf'), body: await renderPdf(m) }
 }
 
-export async function studyReportXlsx(siteId: number, studyId: number, generatedBy: string): Promise<{ fileName: string; body: Buffer }> {
-  const m = await buildReport(siteId, studyId, generatedBy)
+export async function studyReportXlsx(siteId: number, studyId: number, reader: { name: string; unitSystem: UnitSystem }): Promise<{ fileName: string; body: Buffer }> {
+  const m = await buildReport(siteId, studyId, reader)
   return { fileName: reportFileName(m, 'xlsx'), body: await renderXlsx(m) }
 }

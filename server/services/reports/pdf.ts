@@ -1,180 +1,302 @@
 import PDFDocument from 'pdfkit'
-import type { ReportModel, CurveSeries } from './model.ts'
+import { REVIEW_WORDS, type ReportModel, type ReportSection } from './model.ts'
 import { fmt, money } from './format.ts'
+import {
+  INK, MARGIN, MUTED, RULE, STATUS_INK, bottom, contentWidth, dateTime, ensure, groupTable, heading, keyValues, note, pdfText, sheetBlock, table, type Doc,
+} from './pdf-layout.ts'
 import { confidencePdf } from './confidence.ts'
+import { costCurveFigure, costGapFigure, operatingDiagram, GAP_PARTS } from './pdf-figures.ts'
+
+export { pdfText } from './pdf-layout.ts'
 
 /**
  * The printable study report (A4, built-in Helvetica: nothing is loaded from outside).
- * Sections: title block, inputs, design summary, tray checks, cost breakdown, cost curves,
- * options, sign-off history, cautions.
+ * Page 1 is the data sheet (what a vendor enquiry needs); then the sections of SECTIONS in
+ * order. Numbers are in the reader's unit system with the screens' labels.
  */
 
-type Doc = PDFKit.PDFDocument
-
-const MARGIN = 50
-const INK = '#1f2a33'
-const MUTED = '#5b6770'
-const RULE = '#c9d1d6'
-const ACCENT = '#1d6f8c'
-const STATUS_INK: Record<string, string> = { pass: '#2e7d32', warn: '#b26a00', fail: '#c62828' }
-
-/** The standard fonts encode WinAnsi only: replace what they cannot show. */
-export function pdfText(s: string): string {
-  return s
-    .replace(/[\u2212\u2010\u2011]/g, '-')
-    .replace(/\u2264/g, '<=')
-    .replace(/\u2265/g, '>=')
-    .replace(/\u00d7/g, 'x')
-    .replace(/\u03bc/g, 'u')
-    .replace(/[\u2070-\u209f]/g, '')
-    .replace(/[^\x09\x0a\x0d\x20-\x7e\u00a0-\u00ff\u2013\u2014\u2018\u2019\u201c\u201d\u2022\u2026\u20ac]/g, '?')
+interface Section {
+  key: string
+  render(doc: Doc, m: ReportModel): void
 }
 
-function bottom(doc: Doc): number {
-  return doc.page.height - MARGIN
+const unitsName = (m: ReportModel) => (m.unitSystem === 'US' ? 'US customary units' : 'SI units')
+
+function runLine(r: { id: number; createdAt: Date; createdByName: string | null } | undefined): string {
+  return r ? `#${r.id}, ${dateTime(r.createdAt)}${r.createdByName ? `, ${r.createdByName}` : ''}` : 'none'
 }
 
-function ensure(doc: Doc, height: number): void {
-  if (doc.y + height > bottom(doc)) doc.addPage()
+function basisLine(m: ReportModel): string {
+  const parts: string[] = []
+  const d = m.design?.run
+  if (d) parts.push(`${d.costBasisVersion === null ? 'not priced' : `version ${d.costBasisVersion}`} (${d.kind === 'design' ? 'design' : 'optimum'} run #${d.id})`)
+  if (m.optimise && m.optimise.run.id !== d?.id) parts.push(`${m.optimise.run.costBasisVersion === null ? 'not priced' : `version ${m.optimise.run.costBasisVersion}`} (optimisation run #${m.optimise.run.id})`)
+  return parts.join('; ') || 'none'
 }
 
-function heading(doc: Doc, text: string): void {
-  ensure(doc, 60)
-  doc.moveDown(0.8)
-  doc.font('Helvetica-Bold').fontSize(13).fillColor(ACCENT).text(pdfText(text), MARGIN, doc.y)
-  const y = doc.y + 2
-  doc.moveTo(MARGIN, y).lineTo(doc.page.width - MARGIN, y).lineWidth(0.5).strokeColor(RULE).stroke()
-  doc.moveDown(0.5)
-  doc.font('Helvetica').fontSize(9).fillColor(INK)
-}
-
-function note(doc: Doc, text: string): void {
-  ensure(doc, 20)
-  doc.font('Helvetica-Oblique').fontSize(9).fillColor(MUTED).text(pdfText(text), MARGIN, doc.y, { width: doc.page.width - 2 * MARGIN })
-  doc.font('Helvetica').fillColor(INK)
-}
-
-interface Column {
-  title: string
-  width: number
-  align?: 'left' | 'right' | 'center'
-}
-
-/** A simple table: header row, then rows; breaks pages and repeats the header. */
-function table(doc: Doc, columns: Column[], rows: string[][], colour?: (row: number, col: number) => string | undefined): void {
-  const rowH = 13
-  const drawHeader = () => {
-    let x = MARGIN
-    doc.font('Helvetica-Bold').fontSize(8).fillColor(MUTED)
-    const y = doc.y
-    for (const c of columns) {
-      doc.text(pdfText(c.title), x + 2, y, { width: c.width - 4, align: c.align ?? 'left', lineBreak: false, ellipsis: true })
-      x += c.width
-    }
-    doc.y = y + rowH
-    doc.moveTo(MARGIN, doc.y - 2).lineTo(MARGIN + columns.reduce((s, c) => s + c.width, 0), doc.y - 2).lineWidth(0.5).strokeColor(RULE).stroke()
-    doc.font('Helvetica').fontSize(8.5).fillColor(INK)
-  }
-  ensure(doc, rowH * 3)
-  drawHeader()
-  rows.forEach((r, i) => {
-    if (doc.y + rowH > bottom(doc)) {
-      doc.addPage()
-      drawHeader()
-    }
-    let x = MARGIN
-    const y = doc.y
-    columns.forEach((c, j) => {
-      doc.fillColor(colour?.(i, j) ?? INK)
-      doc.text(pdfText(r[j] ?? ''), x + 2, y, { width: c.width - 4, align: c.align ?? 'left', lineBreak: false, ellipsis: true })
-      x += c.width
+/** Page 1: title block, the vendor data sheet in two columns, the cautions. */
+function dataSheetPage(doc: Doc, m: ReportModel): void {
+  const width = contentWidth(doc)
+  doc.font('Helvetica').fontSize(9).fillColor(MUTED).text(pdfText(`Scrubwright study report  |  ${m.site.name}`), MARGIN, MARGIN)
+  doc.moveDown(0.3)
+  doc.font('Helvetica-Bold').fontSize(18).fillColor(INK).text(pdfText(m.study.name), { width })
+  if (m.study.description) doc.font('Helvetica').fontSize(9.5).fillColor(MUTED).text(pdfText(m.study.description), { width })
+  doc.moveDown(0.3)
+  const last = m.review.filter((e) => e.kind === 'approve' || e.kind === 'submit').at(-1)
+  doc.font('Helvetica').fontSize(8.5).fillColor(INK).text(pdfText(
+    `Revision ${m.study.revision}, ${m.study.status.replace('_', ' ')}${last ? ` (${last.kind === 'approve' ? 'approved' : 'submitted'} by ${last.who}, ${last.at.toISOString().slice(0, 10)})` : ''}  |  ` +
+    `design ${m.design ? runLine(m.design.run) : 'none'}  |  cost basis ${basisLine(m)}  |  ${unitsName(m)}  |  report ${dateTime(m.generatedAt)}`,
+  ), { width })
+  heading(doc, 'Data sheet', 100)
+  if (!m.dataSheet.length) {
+    note(doc, 'No design or optimisation has been run for this study yet: the report shows the inputs, options and sign-off history only.')
+  } else {
+    const top = doc.y
+    const colW = (width - 24) / 2
+    const half = Math.ceil(m.dataSheet.length / 2)
+    let yl = top
+    let yr = top
+    m.dataSheet.forEach((g, i) => {
+      if (i < half) yl = sheetBlock(doc, g, MARGIN, yl, colW)
+      else yr = sheetBlock(doc, g, MARGIN + colW + 24, yr, colW)
     })
-    doc.y = y + rowH
-  })
-  doc.fillColor(INK)
-  doc.x = MARGIN
+    doc.y = Math.max(yl, yr)
+    doc.x = MARGIN
+  }
+  // the cautions, boxed, at the foot of the data sheet
+  const text = m.cautions.map((c) => `- ${c}`).join('\n')
+  doc.font('Helvetica').fontSize(7.5)
+  const h = doc.heightOfString(pdfText(text), { width: width - 16 }) + 24
+  const y = Math.max(doc.y + 6, bottom(doc) - h)
+  doc.rect(MARGIN, y, width, h).lineWidth(0.6).strokeColor(STATUS_INK.warn!).stroke()
+  doc.font('Helvetica-Bold').fontSize(8.5).fillColor(STATUS_INK.warn!).text('Cautions', MARGIN + 8, y + 6)
+  doc.font('Helvetica').fontSize(7.5).fillColor(INK).text(pdfText(text), MARGIN + 8, y + 18, { width: width - 16 })
 }
 
-function keyValues(doc: Doc, pairs: [string, string][]): void {
-  table(doc, [{ title: 'Item', width: 150 }, { title: 'Value', width: 345 }], pairs.map(([k, v]) => [k, v]))
+const details: Section = {
+  key: 'details',
+  render(doc, m) {
+    heading(doc, 'Report details')
+    const designRun = m.design?.run.kind === 'design' ? m.design.run : undefined
+    const versions = (pick: (r: { costBasisVersion: number | null; engineVersion: string }) => string) =>
+      [designRun ? `${pick(designRun)} (design)` : '', m.optimise ? `${pick(m.optimise.run)} (optimisation)` : ''].filter(Boolean).join('; ') || 'none'
+    keyValues(doc, [
+      ['Site', m.site.name],
+      ['Study', `${m.study.name} (id ${m.study.id})`],
+      ['Status', m.study.status.replace('_', ' ')],
+      ['Revision', String(m.study.revision)],
+      ['Owner', m.study.ownerName],
+      ['Report date', `${dateTime(m.generatedAt)}, by ${m.generatedBy}`],
+      ['Units', unitsName(m)],
+      ['Design run', runLine(designRun)],
+      ['Optimisation run', runLine(m.optimise?.run)],
+      ['Cost basis version', versions((r) => (r.costBasisVersion === null ? 'none' : `version ${r.costBasisVersion}`))],
+      ['Cost basis in force', m.costBasisInForce ? `version ${m.costBasisInForce.version}, effective ${m.costBasisInForce.effectiveDate ?? ''}` : 'none'],
+      ['Engine version', versions((r) => r.engineVersion)],
+    ])
+  },
 }
 
-/** Round axis bounds and a tick step (1, 2 or 5 times a power of ten). */
-function niceScale(lo: number, hi: number, ticks = 5): { lo: number; hi: number; step: number } {
-  if (hi <= lo) {
-    const pad = Math.abs(lo) * 0.05 || 1
-    lo -= pad
-    hi += pad
-  }
-  const raw = (hi - lo) / ticks
-  const mag = Math.pow(10, Math.floor(Math.log10(raw)))
-  const step = [1, 2, 5, 10].map((m) => m * mag).find((s) => s >= raw) ?? 10 * mag
-  return { lo: Math.floor(lo / step) * step, hi: Math.ceil(hi / step) * step, step }
+const inputs: Section = {
+  key: 'inputs',
+  render(doc, m) {
+    heading(doc, 'Inputs')
+    if (m.inputsNote) note(doc, m.inputsNote)
+    if (m.inputs.length) groupTable(doc, m.inputs)
+  },
 }
 
-/** A vector line chart: TAC (solid), annualised capital (dashed) and operating cost (dotted) vs x, optimum marked. */
-function lineChart(doc: Doc, s: CurveSeries, currency: string, x0: number, y0: number, w: number, h: number): void {
-  const plot = { x: x0 + 48, y: y0 + 18, w: w - 58, h: h - 48 }
-  doc.font('Helvetica-Bold').fontSize(9).fillColor(INK).text(pdfText(s.title), x0, y0, { width: w, lineBreak: false })
-  if (s.points.length < 2) {
-    doc.font('Helvetica-Oblique').fontSize(8).fillColor(MUTED).text('Too few feasible points to draw this curve.', plot.x, plot.y + 20, { width: plot.w })
-    return
-  }
-  const xs = s.points.map((p) => p.x)
-  const ys = s.points.flatMap((p) => [p.tac, p.capital, p.operating])
-  const sx = niceScale(Math.min(...xs), Math.max(...xs))
-  const sy = niceScale(0, Math.max(...ys))
-  const px = (v: number) => plot.x + ((v - sx.lo) / (sx.hi - sx.lo)) * plot.w
-  const py = (v: number) => plot.y + plot.h - ((v - sy.lo) / (sy.hi - sy.lo)) * plot.h
-
-  doc.lineWidth(0.4).strokeColor(RULE)
-  doc.font('Helvetica').fontSize(6.5).fillColor(MUTED)
-  for (let v = sy.lo; v <= sy.hi + sy.step / 2; v += sy.step) {
-    doc.moveTo(plot.x, py(v)).lineTo(plot.x + plot.w, py(v)).stroke()
-    doc.text(fmt(v / 1000, 3), x0, py(v) - 3, { width: 44, align: 'right', lineBreak: false })
-  }
-  for (let v = sx.lo; v <= sx.hi + sx.step / 2; v += sx.step) {
-    doc.moveTo(px(v), plot.y + plot.h).lineTo(px(v), plot.y + plot.h + 3).stroke()
-    doc.text(fmt(v, 4), px(v) - 20, plot.y + plot.h + 5, { width: 40, align: 'center', lineBreak: false })
-  }
-  doc.lineWidth(0.8).strokeColor(INK).rect(plot.x, plot.y, plot.w, plot.h).stroke()
-  doc.text(pdfText(`${s.xLabel} [${s.xUnit}]`), plot.x, plot.y + plot.h + 14, { width: plot.w, align: 'center', lineBreak: false })
-  doc.save().rotate(-90, { origin: [x0 + 6, plot.y + plot.h / 2] })
-  doc.text(pdfText(`Cost [1000 ${currency}/yr]`), x0 + 6 - plot.h / 2, plot.y + plot.h / 2 - 4, { width: plot.h, align: 'center', lineBreak: false })
-  doc.restore()
-
-  const line = (key: 'tac' | 'capital' | 'operating', colour: string, dash?: [number, number]) => {
-    doc.save()
-    doc.lineWidth(key === 'tac' ? 1.6 : 1).strokeColor(colour)
-    if (dash) doc.dash(dash[0], { space: dash[1] })
-    s.points.forEach((p, i) => (i === 0 ? doc.moveTo(px(p.x), py(p[key])) : doc.lineTo(px(p.x), py(p[key]))))
-    doc.stroke()
-    doc.undash()
-    doc.restore()
-  }
-  line('capital', '#7b8f9c', [4, 2])
-  line('operating', '#b26a00', [1, 2])
-  line('tac', ACCENT)
-  doc.circle(px(s.optimumX), py(s.optimumTac), 3).fillColor('#c62828').fill()
-
-  // Legend
-  const ly = plot.y + 4
-  const items: [string, string][] = [['TAC', ACCENT], ['Capital (annualised)', '#7b8f9c'], ['Operating', '#b26a00'], ['Optimum', '#c62828']]
-  let lx = plot.x + 6
-  doc.fontSize(6.5)
-  for (const [label, colour] of items) {
-    doc.rect(lx, ly + 1, 8, 4).fillColor(colour).fill()
-    doc.fillColor(INK).text(label, lx + 11, ly, { lineBreak: false })
-    lx += 16 + doc.widthOfString(label)
-  }
-  if (s.infeasible) {
-    doc.fillColor(MUTED).text(`${s.infeasible} infeasible point(s) not drawn`, plot.x + 6, plot.y + plot.h - 10, { lineBreak: false })
-  }
-  doc.fillColor(INK)
+const design: Section = {
+  key: 'design',
+  render(doc, m) {
+    heading(doc, 'Design summary')
+    if (!m.design) return note(doc, 'No design run exists for this study.')
+    note(doc, `From ${m.design.source}.`)
+    groupTable(doc, m.design.groups)
+    for (const w of m.design.warnings) note(doc, `Note: ${w}`)
+  },
 }
 
-function dateTime(d: Date): string {
-  return `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`
+const diagram: Section = {
+  key: 'diagram',
+  render(doc, m) {
+    if (!m.profile) return
+    heading(doc, 'Operating diagram', 300)
+    note(doc, `Equilibrium curve, operating line and theoretical stages, top of the column at the lower left. ${m.profile.methodNote}`)
+    doc.moveDown(0.4)
+    const y = doc.y
+    operatingDiagram(doc, m.profile, MARGIN, y, contentWidth(doc), 300)
+    doc.y = y + 306
+    doc.x = MARGIN
+  },
+}
+
+const checks: Section = {
+  key: 'checks',
+  render(doc, m) {
+    heading(doc, 'Tray checks')
+    if (!m.design) return note(doc, 'No design run exists for this study.')
+    const limit = (c: (typeof m.design.checks)[number]) => `${c.direction === 'min' ? '>= ' : c.direction === 'max' ? '<= ' : ''}${fmt(c.limit, 4)}`
+    table(doc,
+      [{ title: 'Check', width: 190 }, { title: 'Value', width: 80, align: 'right' }, { title: 'Limit', width: 80, align: 'right' }, { title: '', width: 8 }, { title: 'Unit', width: 52 }, { title: 'Result', width: 85 }],
+      m.design.checks.map((c) => [c.label, fmt(c.value, 4), limit(c), '', c.unit, c.status.toUpperCase()]),
+      (i, j) => (j === 5 ? STATUS_INK[m.design!.checks[i]!.status] : undefined))
+    for (const c of m.design.checks.filter((x) => x.status !== 'pass' && x.advice)) note(doc, `${c.label}: ${c.advice}`)
+  },
+}
+
+const costs: Section = {
+  key: 'costs',
+  render(doc, m) {
+    heading(doc, 'Cost breakdown')
+    if (!m.costs) return note(doc, m.design ? 'The design run was not priced (no published cost basis at the time).' : 'No design run exists for this study.')
+    const c = m.costs
+    note(doc, `${c.currency} at cost index ${fmt(c.costIndex, 5)}; capital annualised with a capital recovery factor of ${fmt(c.capitalRecoveryFactor, 4)} per year; cost basis ${basisLine(m)}.`)
+    table(doc,
+      [{ title: 'Item', width: 130 }, { title: 'Size / quantity', width: 115 }, { title: `Purchased [${c.currency}]`, width: 80, align: 'right' }, { title: `Installed [${c.currency}]`, width: 80, align: 'right' }, { title: `Annual [${c.currency}/yr]`, width: 90, align: 'right' }],
+      [
+        ...c.rows.map((r) => [r.label, `${fmt(r.size, 4)} ${r.sizeUnit}`, r.purchased === null ? '' : fmt(r.purchased, 5), r.installed === null ? '' : fmt(r.installed, 5), fmt(r.annual, 5)]),
+        ['Annualised capital', '', '', fmt(c.installedCapital, 5), fmt(c.annualisedCapital, 5)],
+        ['Operating cost', '', '', '', fmt(c.operatingCost, 5)],
+      ])
+    doc.moveDown(0.4)
+    keyValues(doc, [
+      ['Total annualised cost (TAC)', `${money(c.totalAnnualCost, c.currency)} /yr`],
+      ['Solute recovered', `${fmt(m.unitSystem === 'US' ? c.soluteRecoveredPerYear / 0.45359237 : c.soluteRecoveredPerYear, 4)} ${m.unitSystem === 'US' ? 'lb/yr' : 'kg/yr'}`],
+      ['Cost per kg recovered', `${c.currency} ${fmt(c.costPerKgRecovered, 4)} /kg`],
+    ])
+  },
+}
+
+const curves: Section = {
+  key: 'curves',
+  render(doc, m) {
+    heading(doc, 'Cost curves', 230)
+    if (!m.optimise) return note(doc, 'No optimisation run exists for this study; run one to see the cost curves.')
+    const o = m.optimise
+    note(doc, `Optimum of run #${o.run.id}: ${o.rows.map((r) => `${r.label} ${typeof r.value === 'number' ? fmt(r.value, r.digits ?? 4) : r.value}${r.unit ? ` ${r.unit}` : ''}`).join('; ')}; TAC ${money(o.totalAnnualCost, m.currency)} /yr (${o.evaluations} evaluations).`)
+    doc.moveDown(0.4)
+    for (const s of m.curves) {
+      ensure(doc, 225)
+      const y = doc.y
+      costCurveFigure(doc, s, m.currency, MARGIN, y, contentWidth(doc), 215)
+      doc.y = y + 225
+      doc.x = MARGIN
+    }
+  },
+}
+
+const options: Section = {
+  key: 'options',
+  render(doc, m) {
+    heading(doc, 'Options')
+    if (!m.options.length) return note(doc, 'No options are pinned.')
+    const len = m.unitSystem === 'US' ? 'ft' : 'm'
+    table(doc,
+      [{ title: 'Option', width: 140 }, { title: 'Run', width: 70 }, { title: 'Trays', width: 40, align: 'right' }, { title: `Diameter [${len}]`, width: 65, align: 'right' }, { title: `TAC [${m.currency || 'currency'}/yr]`, width: 80, align: 'right' }, { title: 'Notes', width: 100 }],
+      m.options.map((o) => [
+        `${o.name}${o.id === m.recommendedOptionId ? ' (recommended)' : ''}`,
+        `#${o.runId} ${o.run.kind}`,
+        o.summary?.actualTrays !== undefined ? String(o.summary.actualTrays) : '',
+        o.diameter === null ? '' : fmt(o.diameter, 3),
+        o.tac === null ? '' : fmt(o.tac, 6),
+        o.notes,
+      ]))
+  },
+}
+
+const operating: Section = {
+  key: 'operating',
+  render(doc, m) {
+    const op = m.operating
+    if (!op) return
+    heading(doc, 'Operating log: cost gap against the approved optimum', 260)
+    if (op.issue) note(doc, op.issue)
+    if (!op.months.length) return
+    note(doc, `Each logged month rated with the as-built column (approved design run #${op.designRunId}) and priced with the cost basis in force that month; the gap to the approved optimum's month cost (cost basis version ${op.costBasisVersion ?? 'none'}) is split into its causes, which add up to the gap.`)
+    if (op.drift) note(doc, `Drift: ${op.drift}`)
+    doc.moveDown(0.3)
+    const y = doc.y
+    costGapFigure(doc, op.months, m.currency, MARGIN, y, contentWidth(doc), 220)
+    doc.y = y + 226
+    doc.x = MARGIN
+    const c = (v: number | null) => (v === null ? '' : fmt(v, 4))
+    const cur = m.currency
+    table(doc,
+      [
+        { title: 'Month', width: 48 }, { title: `Reference [${cur}]`, width: 56, align: 'right' }, { title: `Actual [${cur}]`, width: 56, align: 'right' },
+        { title: `Gap [${cur}]`, width: 56, align: 'right' }, ...GAP_PARTS.map((p) => ({ title: `${p.label} [${cur}]`, width: 55.8, align: 'right' as const })),
+      ],
+      [
+        ...op.months.map((x) => [x.month, c(x.reference), fmt(x.actual, 4), c(x.gap), ...GAP_PARTS.map((p) => c(x[p.key]))]),
+        ['To date', fmt(op.toDate.reference, 4), fmt(op.toDate.actual, 4), fmt(op.toDate.gap, 4), ...GAP_PARTS.map((p) => fmt(op.months.reduce((a, x) => a + (x[p.key] ?? 0), 0), 4))],
+      ])
+    doc.moveDown(0.6)
+    table(doc,
+      [
+        { title: 'Month', width: 45 }, { title: `Gas [${op.flowUnit}]`, width: 58, align: 'right' }, { title: `Solvent [${op.flowUnit}]`, width: 58, align: 'right' },
+        { title: `Solvent needed [${op.flowUnit}]`, width: 62, align: 'right' }, { title: 'Recovery expected [%]', width: 56, align: 'right' },
+        { title: 'Recovery measured [%]', width: 56, align: 'right' }, { title: 'Efficiency achieved / design [%]', width: 72, align: 'right' },
+        { title: 'Operating window', width: 86 },
+      ],
+      op.months.map((x) => [
+        x.month, fmt(x.gasFlow, 4), fmt(x.solventFlow, 4), c(x.solventNeeded), fmt(x.expectedRecovery, 4), c(x.measuredRecovery),
+        `${c(x.achievedEfficiency) || '-'} / ${fmt(x.designEfficiency, 3)}`, x.insideWindow ? 'inside' : `outside: ${x.outside.join(', ')}`,
+      ]))
+    note(doc, 'Achieved efficiency: back-calculated from the measured recovery at the month\'s flows. Solvent needed: the solvent at which the as-built column at design efficiency reaches the design recovery with the month\'s gas.')
+  },
+}
+
+function extraSection(s: ReportSection): Section {
+  return {
+    key: s.key,
+    render(doc) {
+      heading(doc, s.title)
+      for (const n of s.notes) note(doc, n)
+      if (!s.columns.length) return
+      const w = contentWidth(doc) / s.columns.length
+      table(doc, s.columns.map((c, i) => ({ title: c.unit ? `${c.title} [${c.unit}]` : c.title, width: w, align: i === 0 ? 'left' : 'right' })),
+        s.rows.map((r) => r.map((v) => (v === null ? '' : typeof v === 'number' ? fmt(v, 4) : v))))
+    },
+  }
+}
+
+/** Sign-off history and cautions close the report; kept together so the last page is never a stub. */
+const closing: Section = {
+  key: 'closing',
+  render(doc, m) {
+    const width = contentWidth(doc)
+    doc.font('Helvetica').fontSize(9)
+    const cautionsH = m.cautions.reduce((a, c) => a + doc.heightOfString(pdfText(`- ${c}`), { width }) + 4, 0)
+    const needed = 70 + Math.max(1, m.review.length) * 13 + 50 + cautionsH
+    if (doc.y + needed > bottom(doc) && needed < bottom(doc) - MARGIN) doc.addPage()
+    heading(doc, 'Sign-off history')
+    if (!m.review.length) note(doc, 'No review events yet.')
+    else {
+      table(doc, [{ title: 'When', width: 100 }, { title: 'Event', width: 100 }, { title: 'Who', width: 100 }, { title: 'Comment', width: 195 }],
+        m.review.map((e) => [dateTime(e.at), REVIEW_WORDS[e.kind] ?? e.kind, e.who, e.body.replace(/\s+/g, ' ')]))
+    }
+    heading(doc, 'Cautions')
+    doc.font('Helvetica').fontSize(9).fillColor(INK)
+    for (const c of m.cautions) {
+      ensure(doc, 30)
+      doc.text(pdfText(`- ${c}`), MARGIN, doc.y, { width })
+      doc.moveDown(0.3)
+    }
+  },
+}
+
+/** The sections after the data sheet, in order; features add theirs through the model's `sections`. */
+/** The chance of meeting the target (./confidence.ts renders it). */
+const confidence: Section = {
+  key: 'confidence',
+  render(doc, m) {
+    if (m.confidence) confidencePdf(doc, m.confidence, pdfText)
+  },
+}
+
+function sectionsOf(m: ReportModel): Section[] {
+  return [details, inputs, design, diagram, checks, costs, curves, options, operating, ...m.sections.map(extraSection), confidence, closing]
 }
 
 export function renderPdf(m: ReportModel): Promise<Buffer> {
@@ -190,138 +312,11 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
     doc.on('end', () => resolve(Buffer.concat(chunks)))
     doc.on('error', reject)
   })
-  const width = doc.page.width - 2 * MARGIN
+  const width = contentWidth(doc)
 
-  // ---- title block
-  doc.font('Helvetica').fontSize(9).fillColor(MUTED).text(pdfText(`Scrubwright study report  |  ${m.site.name}`), MARGIN, MARGIN)
-  doc.moveDown(0.3)
-  doc.font('Helvetica-Bold').fontSize(18).fillColor(INK).text(pdfText(m.study.name), { width })
-  if (m.study.description) doc.font('Helvetica').fontSize(9.5).fillColor(MUTED).text(pdfText(m.study.description), { width })
-  doc.moveDown(0.5)
-  const runLine = (r: { id: number; createdAt: Date; createdByName: string | null } | undefined) =>
-    r ? `#${r.id}, ${dateTime(r.createdAt)}${r.createdByName ? `, ${r.createdByName}` : ''}` : 'none'
-  const designRun = m.design?.run.kind === 'design' ? m.design.run : undefined
-  const versions = (pick: (r: { costBasisVersion: number | null; engineVersion: string }) => string) =>
-    [designRun ? `${pick(designRun)} (design)` : '', m.optimise ? `${pick(m.optimise.run)} (optimisation)` : ''].filter(Boolean).join('; ') || 'none'
-  keyValues(doc, [
-    ['Site', m.site.name],
-    ['Study', `${m.study.name} (id ${m.study.id})`],
-    ['Status', m.study.status.replace('_', ' ')],
-    ['Revision', String(m.study.revision)],
-    ['Owner', m.study.ownerName],
-    ['Report date', `${dateTime(m.generatedAt)}, by ${m.generatedBy}`],
-    ['Design run', runLine(designRun)],
-    ['Optimisation run', runLine(m.optimise?.run)],
-    ['Cost basis version', versions((r) => (r.costBasisVersion === null ? 'none' : `version ${r.costBasisVersion}`))],
-    ['Cost basis in force', m.costBasisInForce ? `version ${m.costBasisInForce.version}, effective ${m.costBasisInForce.effectiveDate ?? ''}` : 'none'],
-    ['Engine version', versions((r) => r.engineVersion)],
-  ])
-  if (!m.design && !m.optimise) {
-    doc.moveDown(0.5)
-    note(doc, 'No design or optimisation has been run for this study yet: the report shows the inputs, options and sign-off history only.')
-  }
-
-  // ---- inputs
-  heading(doc, 'Inputs')
-  if (m.inputsNote) note(doc, m.inputsNote)
-  table(doc, [{ title: 'Field', width: 220 }, { title: 'Value', width: 170, align: 'right' }, { title: 'Unit', width: 105 }],
-    m.inputs.map((r) => [r.label, typeof r.value === 'number' ? fmt(r.value, 6) : r.value, r.unit]))
-
-  // ---- design
-  heading(doc, 'Design summary')
-  if (!m.design) note(doc, 'No design run exists for this study.')
-  else {
-    note(doc, `From ${m.design.source}.`)
-    table(doc, [{ title: 'Quantity', width: 250 }, { title: 'Value', width: 140, align: 'right' }, { title: 'Unit', width: 105 }],
-      m.design.summary.map((r) => [r.label, typeof r.value === 'number' ? fmt(r.value, 4) : r.value, r.unit]))
-    if (m.design.warnings.length) {
-      doc.moveDown(0.4)
-      for (const w of m.design.warnings) note(doc, `Warning: ${w}`)
-    }
-  }
-
-  heading(doc, 'Tray checks')
-  if (!m.design) note(doc, 'No design run exists for this study.')
-  else {
-    table(doc,
-      [{ title: 'Check', width: 170 }, { title: 'Value', width: 80, align: 'right' }, { title: 'Limit', width: 80, align: 'right' }, { title: 'Unit', width: 60 }, { title: 'Result', width: 105 }],
-      m.design.checks.map((c) => [c.label, fmt(c.value, 4), fmt(c.limit, 4), c.unit, c.status.toUpperCase()]),
-      (i, j) => (j === 4 ? STATUS_INK[m.design!.checks[i]!.status] : undefined))
-    const advice = m.design.checks.filter((c) => c.status !== 'pass' && c.advice)
-    for (const c of advice) note(doc, `${c.label}: ${c.advice}`)
-  }
-
-  // ---- costs
-  heading(doc, 'Cost breakdown')
-  if (!m.costs) note(doc, m.design ? 'The design run was not priced (no published cost basis at the time).' : 'No design run exists for this study.')
-  else {
-    const c = m.costs
-    note(doc, `${c.currency} at cost index ${fmt(c.costIndex, 5)}; capital annualised with a capital recovery factor of ${fmt(c.capitalRecoveryFactor, 4)} per year.`)
-    table(doc,
-      [{ title: 'Item', width: 130 }, { title: 'Size / quantity', width: 115 }, { title: `Purchased [${c.currency}]`, width: 80, align: 'right' }, { title: `Installed [${c.currency}]`, width: 80, align: 'right' }, { title: `Annual [${c.currency}/yr]`, width: 90, align: 'right' }],
-      [
-        ...c.rows.map((r) => [r.label, r.size, r.purchased === null ? '' : fmt(r.purchased, 5), r.installed === null ? '' : fmt(r.installed, 5), fmt(r.annual, 5)]),
-        ['Annualised capital', '', '', fmt(c.installedCapital, 5), fmt(c.annualisedCapital, 5)],
-        ['Operating cost', '', '', '', fmt(c.operatingCost, 5)],
-      ])
-    doc.moveDown(0.4)
-    keyValues(doc, [
-      ['Total annualised cost (TAC)', `${money(c.totalAnnualCost, c.currency)} /yr`],
-      ['Solute recovered', `${fmt(c.soluteRecoveredPerYear, 4)} kg/yr`],
-      ['Cost per kg recovered', `${c.currency} ${fmt(c.costPerKgRecovered, 4)} /kg`],
-    ])
-  }
-
-  // ---- curves
-  heading(doc, 'Cost curves')
-  if (!m.optimise) note(doc, 'No optimisation run exists for this study; run one to see the cost curves.')
-  else {
-    const o = m.optimise
-    note(doc, `Optimum of run #${o.run.id}: recovery ${fmt(o.recovery * 100, 4)} %, solvent factor ${fmt(o.solventFactor, 4)}, tray spacing ${fmt(o.traySpacing, 3)} m, ${fmt(o.floodFraction * 100, 3)} % of flood, ${o.actualTrays} trays, diameter ${fmt(o.selectedDiameter, 3)} m, TAC ${money(o.totalAnnualCost, m.currency)} /yr (${o.evaluations} evaluations).`)
-    doc.moveDown(0.4)
-    for (const s of m.curves) {
-      ensure(doc, 215)
-      const y = doc.y
-      lineChart(doc, s, m.currency, MARGIN, y, width, 205)
-      doc.y = y + 215
-      doc.x = MARGIN
-    }
-  }
-
-  // ---- options
-  heading(doc, 'Options')
-  if (!m.options.length) note(doc, 'No options are pinned.')
-  else {
-    table(doc,
-      [{ title: 'Option', width: 140 }, { title: 'Run', width: 70 }, { title: 'Trays', width: 40, align: 'right' }, { title: 'Diameter [m]', width: 65, align: 'right' }, { title: `TAC [${m.currency || 'currency'}/yr]`, width: 80, align: 'right' }, { title: 'Notes', width: 100 }],
-      m.options.map((o) => [
-        `${o.name}${o.id === m.recommendedOptionId ? ' (recommended)' : ''}`,
-        `#${o.runId} ${o.run.kind}`,
-        o.summary?.actualTrays !== undefined ? String(o.summary.actualTrays) : '',
-        o.summary?.selectedDiameter !== undefined ? fmt(o.summary.selectedDiameter, 3) : '',
-        o.tac === null ? '' : fmt(o.tac, 6),
-        o.notes,
-      ]))
-  }
-
-  // ---- sign-off
-  heading(doc, 'Sign-off history')
-  if (!m.review.length) note(doc, 'No review events yet.')
-  else {
-    table(doc, [{ title: 'When', width: 110 }, { title: 'Event', width: 70 }, { title: 'Who', width: 110 }, { title: 'Comment', width: 205 }],
-      m.review.map((e) => [dateTime(e.at), e.kind, e.who, e.body.replace(/\s+/g, ' ')]))
-  }
-
-  if (m.confidence) confidencePdf(doc, m.confidence, pdfText)
-
-  // ---- cautions
-  heading(doc, 'Cautions')
-  doc.font('Helvetica').fontSize(9).fillColor(INK)
-  for (const c of m.cautions) {
-    ensure(doc, 30)
-    doc.text(pdfText(`- ${c}`), MARGIN, doc.y, { width })
-    doc.moveDown(0.3)
-  }
+  dataSheetPage(doc, m)
+  doc.addPage()
+  for (const s of sectionsOf(m)) s.render(doc, m)
 
   // ---- page footers
   const range = doc.bufferedPageRange()
@@ -329,8 +324,9 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
     doc.switchToPage(i)
     const saved = doc.page.margins.bottom
     doc.page.margins.bottom = 0
+    doc.moveTo(MARGIN, doc.page.height - MARGIN + 12).lineTo(doc.page.width - MARGIN, doc.page.height - MARGIN + 12).lineWidth(0.4).strokeColor(RULE).stroke()
     doc.font('Helvetica').fontSize(7).fillColor(MUTED)
-      .text(pdfText(`${m.study.name}, revision ${m.study.revision}  |  page ${i + 1} of ${range.count}`), MARGIN, doc.page.height - MARGIN + 18, { width, align: 'center', lineBreak: false })
+      .text(pdfText(`${m.study.name}, revision ${m.study.revision}  |  ${unitsName(m)}  |  page ${i + 1} of ${range.count}`), MARGIN, doc.page.height - MARGIN + 18, { width, align: 'center', lineBreak: false })
     doc.page.margins.bottom = saved
   }
   doc.end()

@@ -62,7 +62,8 @@ export function readCaseFile(text: string, fallbackName = 'Imported case'): Case
   if (typeof raw !== 'object' || raw === null) return { ok: false, problems: [{ path: '', message: 'The file must hold one case: a JSON object with gas, solute, solvent, equilibrium, recovery and solventFactor.' }] }
   const parsed = caseSchema.safeParse(raw)
   if (!parsed.success) {
-    return { ok: false, problems: parsed.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message })) }
+    const words = (i: { code: string; message: string }) => (i.code === 'invalid_type' && /received undefined$/.test(i.message) ? 'is required' : i.message)
+    return { ok: false, problems: parsed.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: words(i) })) }
   }
   const obj = parsed.data as Record<string, unknown>
   const name = typeof obj.name === 'string' && obj.name.trim() ? obj.name.trim().slice(0, 160) : fallbackName

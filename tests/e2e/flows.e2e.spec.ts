@@ -89,8 +89,16 @@ async function onScreen(p: Page, l: Locator, minWidth = 24): Promise<void> {
 describe('phone layout', () => {
   it('at 390 px the site picker, the units, notifications and the account menu are on screen and work', async () => {
     const p = s.page
-    await p.setViewportSize({ width: 390, height: 844 })
+    // a tablet first: the account menu and notifications fit beside the site picker
+    await p.setViewportSize({ width: 768, height: 1024 })
     await signInAs(p, DEMO_EMAILS.economist, DEMO_PASSWORD)
+    await p.getByTestId('studies-table').waitFor()
+    await onScreen(p, p.getByTestId('site-picker'), 150)
+    await onScreen(p, p.getByTestId('notifications'))
+    await onScreen(p, p.getByTestId('person-menu'))
+    await shot(p, 'shell-768')
+
+    await p.setViewportSize({ width: 390, height: 844 })
     await p.getByTestId('studies-table').waitFor()
     const picker = p.getByTestId('site-picker')
     await onScreen(p, picker, 150)
@@ -240,9 +248,16 @@ describe('operating log', () => {
     await p.getByTestId('op-month').getByText('2026-05 is logged already').waitFor()
     await shot(p, 'operating-flags-si')
 
-    // correct May: enough solvent now, and the flag goes
+    // open April for correction and cancel: the form shows April, then empties
+    await p.getByTestId('op-edit-2026-04').click()
+    await expect.poll(() => p.getByTestId('op-gas').locator('input').inputValue()).toBe('200')
+    await expect(p.getByTestId('op-inlet').locator('input').inputValue()).resolves.toBe('1.1')
+    await p.getByTestId('op-cancel').click()
+    await expect.poll(() => p.getByTestId('op-gas').locator('input').inputValue()).toBe('')
+    // correct May: the form holds May's numbers; enough solvent now, and the flag goes
     await p.getByTestId('op-edit-2026-05').click()
     await expect.poll(() => p.getByTestId('op-solvent').locator('input').inputValue()).toBe(String(lowSolvent))
+    await expect(p.getByTestId('op-gas').locator('input').inputValue()).resolves.toBe('180')
     await p.getByTestId('op-solvent').locator('input').fill(String(Math.ceil(st.solventFlow * 1.05)))
     await p.getByTestId('op-save').click()
     await p.getByTestId('op-add').waitFor()

@@ -299,16 +299,27 @@ function kindSense(kind: QuantityKind): PressureSense {
 
 // Every supported conversion is affine (scale and offset): each (kind, from, to) is worked out
 // once and cached as value * scale + offset.
-const affineCache = new Map<string, Affine>()
+// Maps inside maps (kind -> from -> to): a key joined into one string would be built and hashed
+// for every quantity of every case.
+const affineCache = new Map<QuantityKind, Map<string, Map<string, Affine>>>()
+let affineCount = 0
 
 function convertForKind(kind: QuantityKind, value: number, from: string, to: string): number {
   if (!Number.isFinite(value)) throw new UnitError('notFinite', from, `Value ${value} is not a finite number`, kind)
-  const key = kind + '|' + from + '|' + to
-  let m = affineCache.get(key)
+  let byFrom = affineCache.get(kind)
+  if (!byFrom) affineCache.set(kind, (byFrom = new Map()))
+  let byTo = byFrom.get(from)
+  if (!byTo) byFrom.set(from, (byTo = new Map()))
+  let m = byTo.get(to)
   if (!m) {
     m = affineForKind(kind, from, to)
-    if (affineCache.size > 2000) affineCache.clear()
-    affineCache.set(key, m)
+    if (++affineCount > 2000) {
+      affineCache.clear()
+      affineCount = 1
+      affineCache.set(kind, (byFrom = new Map()))
+      byFrom.set(from, (byTo = new Map()))
+    }
+    byTo.set(to, m)
   }
   return value * m.scale + m.offset
 }

@@ -9,7 +9,7 @@
 import type { CaseSI } from '../case.ts'
 import type { EngineWarning } from '../contract.ts'
 import { InfeasibleDesignError } from '../errors.ts'
-import type { EquilibriumCurve } from '../equilibrium/models.ts'
+import { LinearEquilibrium, type EquilibriumCurve } from '../equilibrium/models.ts'
 import { fractionAbsorbedKremser, stagesKremser } from '../balances/kremser.ts'
 import { eqXofY, eqYofX, LAST_STAGE_CONVENTION, stepStages, type SteppingResult } from '../balances/stageByStage.ts'
 import { minimumSlope, type MinSlope } from '../balances/minimumSolvent.ts'
@@ -55,28 +55,21 @@ export function straightnessDeviation(eq: EquilibriumCurve, X0: number, XstarN: 
 
 const pct = (v: number): string => `${Number((100 * v).toPrecision(2))} %`
 
-interface ChoiceMemo {
-  requested: 'auto' | Method
-  yIn: number
-  xStarN: number
-  X0: number
-  XstarN: number
-  choice: MethodChoice
-}
-
 /**
- * The last choice for each equilibrium curve: it depends on the case alone (not on the recovery
- * or the solvent factor), and its note is a sentence built from formatted numbers, so the
- * optimiser and a batch of one case would otherwise build the same sentence thousands of times.
+ * The last choice: it depends on the case alone (not on the recovery or the solvent factor), and
+ * its note is a sentence built from formatted numbers, so the optimiser and a batch would
+ * otherwise build the same sentence thousands of times. A straight line (y = K x) is compared by
+ * its K, any other curve by the object.
  */
-const choiceMemo = new WeakMap<EquilibriumCurve, ChoiceMemo>()
+let lastChoice: { requested: 'auto' | Method; eq: EquilibriumCurve; linearK: number; yIn: number; xStarN: number; X0: number; XstarN: number; choice: MethodChoice } | null = null
 
 /** Which method runs, and a note that says why, in words. */
 export function chooseMethod(requested: 'auto' | Method, eq: EquilibriumCurve, yIn: number, xStarN: number, X0: number, XstarN: number): MethodChoice {
-  const m = choiceMemo.get(eq)
-  if (m && m.requested === requested && m.yIn === yIn && m.xStarN === xStarN && m.X0 === X0 && m.XstarN === XstarN) return m.choice
+  const linearK = eq instanceof LinearEquilibrium ? eq.K0 : NaN
+  const m = lastChoice
+  if (m && m.requested === requested && (m.eq === eq || m.linearK === linearK) && m.yIn === yIn && m.xStarN === xStarN && m.X0 === X0 && m.XstarN === XstarN) return m.choice
   const choice = Object.freeze(buildChoice(requested, eq, yIn, xStarN, X0, XstarN))
-  choiceMemo.set(eq, { requested, yIn, xStarN, X0, XstarN, choice })
+  lastChoice = { requested, eq, linearK, yIn, xStarN, X0, XstarN, choice }
   return choice
 }
 

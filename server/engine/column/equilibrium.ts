@@ -17,7 +17,18 @@ export interface ColumnEquilibrium {
   info: Record<string, number | string> | null
 }
 
-interface CurveMemo {
+/**
+ * The last curve built, with what it was built from: the design, the optimiser and a batch call
+ * this many times for the same equilibrium at the same conditions, and the curve (a vapour
+ * pressure, a Henry constant, an exponential) is the same each time. Compared by value, so a
+ * batch of cases with the same equilibrium shares it too; one entry, nothing to evict (a map
+ * keyed by the case objects would cost the garbage collector more than it saves).
+ */
+let memo: {
+  e: CaseSI['equilibrium']
+  key: string
+  a: number
+  b: number
   T: number
   P: number
   rho: number
@@ -26,14 +37,22 @@ interface CurveMemo {
   value: ColumnEquilibrium
   /** the warnings the model pushed when it was built, pushed again on every reuse */
   warns: EngineWarning[]
-}
+} | null = null
 
-/**
- * The last curve built for each equilibrium model object, with the column conditions it was built
- * at: the design, the optimiser and a batch call this many times for the same case, and the curve
- * (a vapour pressure, a Henry constant, an exponential) is the same each time.
- */
-const curveMemo = new WeakMap<object, CurveMemo>()
+/** The model's parameters as two numbers and a key (null: compared by object, a table). */
+function params(e: CaseSI['equilibrium']): { key: string; a: number; b: number } | null {
+  switch (e.model) {
+    case 'constantK':
+      return { key: 'K', a: e.K, b: 0 }
+    case 'henry':
+      return { key: 'H', a: e.Hcp, b: e.B }
+    case 'modifiedRaoult':
+      if (e.antoine) return null
+      return { key: `R${e.activityModel}`, a: e.gammaInf, b: e.vapourPressure ?? NaN }
+    case 'table':
+      return null
+  }
+}
 
 /** Build the equilibrium curve of a case at its column temperature and pressure. */
 export function equilibriumCurveOf(c: CaseSI, warnings?: EngineWarning[]): ColumnEquilibrium {
@@ -43,8 +62,9 @@ export function equilibriumCurveOf(c: CaseSI, warnings?: EngineWarning[]): Colum
   const rho = c.solvent.density
   const M = c.solvent.molarMass
   const collect = warnings !== undefined
-  const m = curveMemo.get(e)
-  if (m && m.T === T && m.P === P && m.rho === rho && m.M === M && m.collect === collect) {
+  const p = params(e)
+  const m = memo
+  if (m && m.T === T && m.P === P && m.rho === rho && m.M === M && m.collect === collect && (p ? m.key === p.key && m.a === p.a && m.b === p.b : m.e === e)) {
     if (warnings) for (let i = 0; i < m.warns.length; i++) warnings.push({ ...m.warns[i]! })
     const v = m.value
     return { curve: v.curve, K0: v.K0, info: v.info ? { ...v.info } : null }
@@ -52,7 +72,7 @@ export function equilibriumCurveOf(c: CaseSI, warnings?: EngineWarning[]): Colum
   const n0 = warnings ? warnings.length : 0
   const value = buildCurve(c, e, T, P, warnings)
   const warns = warnings ? warnings.slice(n0).map((w) => ({ ...w })) : []
-  curveMemo.set(e, { T, P, rho, M, collect, value: { curve: value.curve, K0: value.K0, info: value.info ? { ...value.info } : null }, warns })
+  memo = { e, key: p?.key ?? '', a: p?.a ?? NaN, b: p?.b ?? NaN, T, P, rho, M, collect, value: { curve: value.curve, K0: value.K0, info: value.info ? { ...value.info } : null }, warns }
   return value
 }
 

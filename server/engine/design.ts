@@ -25,6 +25,7 @@ import { trayState } from './column/trays.ts'
 import { trayChecks } from './column/checks.ts'
 import { buildProfile } from './column/profile.ts'
 import { guardFinite, numericSum } from './column/guard.ts'
+import { summaryInSI } from '../../shared/summaryUnits.ts'
 
 export { equilibriumCurveOf } from './column/equilibrium.ts'
 
@@ -54,8 +55,6 @@ export const DESIGN_REFERENCES: readonly ReferenceKey[] = Object.freeze<Referenc
   'fritschCarlson1980',
   'commonPractice',
 ])
-
-const KMOLH = 3.6 // mol/s -> kmol/h
 
 function checkVariables(recovery: number, solventFactor: number, floodFraction: number, spacingIn: number | 'auto', actualTraysVar: number | undefined): void {
   const issues: EngineIssue[] = []
@@ -132,9 +131,11 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
   if (height > 53) warnings.push({ code: 'tallColumn', message: `Column height ${height.toFixed(1)} m above about 53 m (175 ft, common practice limit)`, path: 'tray.spacing' })
 
   const Ms = c.solute.molarMass
-  const summary: DesignSummary = {
-    minimumSolventFlow: b.Lmin0 * KMOLH,
-    solventFlow: b.L0 * KMOLH,
+  // SI like everything in the engine; the edges give the public answer its kmol/h and kg/h
+  // (shared/summaryUnits.ts)
+  const summary: DesignSummary = summaryInSI({
+    minimumSolventFlow: b.Lmin0,
+    solventFlow: b.L0,
     absorptionFactor: b.A,
     theoreticalStages: b.N,
     actualTrays: trays,
@@ -155,13 +156,13 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     recovery,
     solventFactor,
     floodFraction,
-    gasFlow: b.V * KMOLH,
+    gasFlow: b.V,
     gasVolumetricFlow: bot.Q,
-    solventMassFlow: leanMass * 3600,
-    solventVolumetricFlow: (leanMass / rhoL) * 3600,
-    soluteInGas: b.V * b.yIn * Ms * 3600,
-    soluteAbsorbed: b.absorbed * Ms * 3600,
-    soluteLost: b.Vp * b.Y1 * Ms * 3600,
+    solventMassFlow: leanMass,
+    solventVolumetricFlow: leanMass / rhoL,
+    soluteInGas: b.V * b.yIn * Ms,
+    soluteAbsorbed: b.absorbed * Ms,
+    soluteLost: b.Vp * b.Y1 * Ms,
     operatingPressure: c.gas.pressure,
     designPressure: c.vessel.designPressure,
     shellThickness: ves.thickness,
@@ -170,7 +171,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     fractionOfFloodTarget: floodFraction,
     overallEfficiency: Eo,
     achievedRecovery,
-  }
+  })
 
   const detail: Record<string, unknown> = wantDetail
     ? {

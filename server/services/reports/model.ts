@@ -1,4 +1,4 @@
-import type { DesignSummary, CheckResult } from '../../engine/contract.ts'
+import type { DesignSummary, CheckResult } from '../../../shared/schemas/results.ts'
 import type { OptionRow } from '../../../shared/schemas/studies.ts'
 
 /** The report's data model: gathered by ../reports.ts, rendered by ./pdf.ts and ./xlsx.ts. */

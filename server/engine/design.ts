@@ -16,7 +16,7 @@ import type { DesignResult, DesignSummary, DesignVariables, EngineIssue, EngineW
 import type { CaseSI } from './case.ts'
 import type { ReferenceKey } from './references.ts'
 import { InfeasibleDesignError } from './errors.ts'
-import { actualTrays, efficiencyOConnell } from './efficiency/oconnell.ts'
+import { actualTrays, efficiencyOConnell, efficiencyWithEntrainment } from './efficiency/oconnell.ts'
 import { VESSEL_CAUTION, vesselShell } from './vessel/shell.ts'
 import { equilibriumCurveOf } from './column/equilibrium.ts'
 import { KREMSER_STRAIGHTNESS_TOLERANCE, lastStageConvention, recoveryWithStages, solveBalances } from './column/balances.ts'
@@ -53,6 +53,10 @@ export const DESIGN_REFERENCES: readonly ReferenceKey[] = Object.freeze<Referenc
   'sinnott2005',
   'asmeVIII1',
   'fritschCarlson1980',
+  'liebson1957',
+  'colburn1936',
+  'ludwig1997',
+  'iupac2021',
   'commonPractice',
 ])
 
@@ -206,9 +210,9 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
           Kmean,
           traysRequired,
           trays,
-          // information: Colburn's entrainment correction E_a = E/(1 + E psi/(1 - psi)) with the worst-end psi
-          // (Ludwig p. 200; applied to the overall efficiency as an approximation); not used for the tray count
-          entrainmentCorrectedEfficiency: Eo / (1 + (Eo * psi) / (1 - psi)),
+          // information: Colburn's entrainment correction with the worst-end psi (efficiency/oconnell.ts,
+          // colburn1936); not used for the tray count
+          entrainmentCorrectedEfficiency: efficiencyWithEntrainment(Eo, psi),
         },
         hydraulics: {
           designEnd: sz.designEndIsBottom ? 'bottom' : 'top',

@@ -9,6 +9,7 @@
  * Large files (over 64 MB, SCRUBWRIGHT_STREAM_BYTES) are read as a stream, in constant memory.
  * An optional "costBasis" beside the case (or the cases) — a full cost basis or
  * { "preset": "name" } — prices each design: its summary gains totalAnnualCost and costBreakdown.
+ * The engine answers in SI; the summary's flows are printed in kmol/h, kg/h and m3/h, as the API does.
  * Exit codes: 0 every case designed; 2 bad or infeasible input, or any case of a batch refused
  * (stderr says how many and which); 1 other.
  */
@@ -17,13 +18,21 @@ import { fileURLToPath } from 'node:url'
 import { reportCliError } from './errors.ts'
 import { evaluateBatch, evaluateCase, InvalidInputError, ENGINE_VERSION } from '../engine/index.ts'
 import type { DesignResult } from '../engine/contract.ts'
+import type { DesignResult as PublicDesign } from '../../shared/schemas/results.ts'
+import { designToPublic, summaryToPublic } from '../../shared/summaryUnits.ts'
 import { priceDesign } from '../engine/costing/index.ts'
 import { costBasisFrom } from './input.ts'
 import { caseSlot, invalidJsonSlot, slotContext, type SlotContext } from '../engine/batch/slots.ts'
 import { forEachLine, readHead, scanJson } from './json-stream.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 
-export type DesignOutput = DesignResult | ReturnType<typeof evaluateBatch>
+/** What the command prints: designs in the public units (kmol/h, kg/h, m3/h in the summary), or refused cases. */
+export type DesignOutput = PublicDesign | (PublicDesign | { error: { code: string; message: string; issues: unknown[] } })[]
+
+/** A design slot (or a summary-only one) in the public units: the engine's SI summary converted at this edge. */
+function publicSlot(d: DesignResult | { summary: DesignResult['summary'] }): PublicDesign | { summary: PublicDesign['summary'] } {
+  return { ...d, summary: summaryToPublic(d.summary) }
+}
 
 /** True when the parsed JSON is a batch ({ cases: [...] } or an array). */
 export function isBatch(raw: unknown): boolean {
@@ -34,15 +43,16 @@ export function isBatch(raw: unknown): boolean {
 export function designOutput(raw: unknown): DesignOutput {
   const hasBasis = typeof raw === 'object' && raw !== null && !Array.isArray(raw) && 'costBasis' in raw
   const basis = hasBasis ? costBasisFrom((raw as { costBasis: unknown }).costBasis) : null
-  const out = isBatch(raw) ? evaluateBatch(raw) : evaluateCase(raw)
-  if (basis) {
-    for (const r of Array.isArray(out) ? out : [out]) {
-      if (!r || typeof r !== 'object' || !('summary' in r)) continue
-      const priced = priceDesign(r as DesignResult, basis)
-      Object.assign((r as DesignResult).summary, { totalAnnualCost: priced.totalAnnualCost, costBreakdown: priced.costBreakdown })
+  const one = (r: DesignResult): PublicDesign => {
+    const out = designToPublic(r)
+    if (basis) {
+      const priced = priceDesign(r, basis)
+      Object.assign(out.summary, { totalAnnualCost: priced.totalAnnualCost, costBreakdown: priced.costBreakdown })
     }
+    return out
   }
-  return out
+  if (!isBatch(raw)) return one(evaluateCase(raw))
+  return evaluateBatch(raw).map((r) => ('summary' in r ? one(r) : r))
 }
 
 /**
@@ -117,7 +127,7 @@ function runSlots(cases: Iterable<unknown> | ((each: (raw: unknown, i: number) =
     const prefix = `cases.${i}.`
     if (raw instanceof BadLine) return w.slot(i, false, invalidJsonSlot(raw.message, `cases.${i}`))
     const s = caseSlot(raw, prefix, ctx)
-    w.slot(i, s.ok, s.value)
+    w.slot(i, s.ok, s.ok ? publicSlot(s.value) : s.value)
   }
   if (typeof cases === 'function') cases(each)
   else {

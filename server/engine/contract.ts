@@ -1,7 +1,9 @@
 /**
  * The contract between the design engine, the cost model, the optimiser and the API.
- * Everything is SI unless the name says otherwise (molar flows in kmol/h as the
- * product's public convention; see each field).
+ * Everything is SI, the design summary included (molar flows in mol/s, mass flows in kg/s, the
+ * solvent's volumetric flow in m^3/s). The public answer carries kmol/h, kg/h and m^3/h: the
+ * edges (server/services/engine-gateway.ts, the command lines) convert with
+ * shared/summaryUnits.ts.
  *
  * The design engine (server/engine/design.ts) produces a DesignResult; the cost model
  * (server/engine/costing/) reads only DesignSummary fields; the optimiser varies the
@@ -11,9 +13,11 @@
 /**
  * The answer shapes (CheckResult, EngineWarning, DesignSummary, StageProfilePoint, DesignResult)
  * are defined once as zod schemas in shared/schemas/results.ts; the engine, the API, the OpenAPI
- * document and the client all take them from there.
+ * document and the client all take them from there. Inside the engine, DesignSummary and
+ * DesignResult are their SI forms (same keys; shared/summaryUnits.ts).
  */
-export type { CheckResult, EngineWarning, DesignSummary, StageProfilePoint, DesignResult } from '../../shared/schemas/results.ts'
+export type { CheckResult, EngineWarning, StageProfilePoint } from '../../shared/schemas/results.ts'
+export type { DesignSummarySI as DesignSummary, DesignResultSI as DesignResult } from '../../shared/summaryUnits.ts'
 
 /** The variables the optimiser moves; everything else comes from the case. */
 export interface DesignVariables {

@@ -16,7 +16,7 @@ import type { DesignResult, DesignSummary, DesignVariables, EngineIssue, EngineW
 import type { CaseSI } from './case.ts'
 import type { ReferenceKey } from './references.ts'
 import { InfeasibleDesignError } from './errors.ts'
-import { actualTrays, efficiencyOConnell, efficiencyOConnellWarnings } from './efficiency/oconnell.ts'
+import { actualTrays, efficiencyOConnell, efficiencyOConnellWarnings, efficiencyWithEntrainment } from './efficiency/oconnell.ts'
 import { memoLast4 } from './numerics/memo.ts'
 import { VESSEL_CAUTION, vesselShell } from './vessel/shell.ts'
 import { equilibriumCurveOf } from './column/equilibrium.ts'
@@ -27,6 +27,7 @@ import { trayChecks } from './column/checks.ts'
 import { buildProfile } from './column/profile.ts'
 import { guardFinite } from './column/guard.ts'
 import { detailChecksum, type DesignDetail } from './column/detail.ts'
+import { summaryInSI } from '../../shared/summaryUnits.ts'
 
 export { equilibriumCurveOf } from './column/equilibrium.ts'
 
@@ -54,10 +55,12 @@ export const DESIGN_REFERENCES: readonly ReferenceKey[] = Object.freeze<Referenc
   'sinnott2005',
   'asmeVIII1',
   'fritschCarlson1980',
+  'liebson1957',
+  'colburn1936',
+  'ludwig1997',
+  'iupac2021',
   'commonPractice',
 ])
-
-const KMOLH = 3.6 // mol/s -> kmol/h
 
 /** O'Connell efficiency of the last (K, M, mu, rho): with a constant K it is the same for every design of a case. */
 const oconnellOf = memoLast4((K, M, mu, rho) => efficiencyOConnell(K, M, mu, rho))
@@ -144,9 +147,11 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
   if (height > 53) warnings.push({ code: 'tallColumn', message: `Column height ${height.toFixed(1)} m above about 53 m (175 ft, common practice limit)`, path: 'tray.spacing' })
 
   const Ms = c.solute.molarMass
-  const summary: DesignSummary = {
-    minimumSolventFlow: b.Lmin0 * KMOLH,
-    solventFlow: b.L0 * KMOLH,
+  // SI like everything in the engine; the edges give the public answer its kmol/h and kg/h
+  // (shared/summaryUnits.ts)
+  const summary: DesignSummary = summaryInSI({
+    minimumSolventFlow: b.Lmin0,
+    solventFlow: b.L0,
     absorptionFactor: b.A,
     theoreticalStages: b.N,
     actualTrays: trays,
@@ -167,13 +172,13 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     recovery,
     solventFactor,
     floodFraction,
-    gasFlow: b.V * KMOLH,
+    gasFlow: b.V,
     gasVolumetricFlow: bot.Q,
-    solventMassFlow: leanMass * 3600,
-    solventVolumetricFlow: (leanMass / rhoL) * 3600,
-    soluteInGas: b.V * b.yIn * Ms * 3600,
-    soluteAbsorbed: b.absorbed * Ms * 3600,
-    soluteLost: b.Vp * b.Y1 * Ms * 3600,
+    solventMassFlow: leanMass,
+    solventVolumetricFlow: leanMass / rhoL,
+    soluteInGas: b.V * b.yIn * Ms,
+    soluteAbsorbed: b.absorbed * Ms,
+    soluteLost: b.Vp * b.Y1 * Ms,
     operatingPressure: c.gas.pressure,
     designPressure: c.vessel.designPressure,
     shellThickness: ves.thickness,
@@ -182,7 +187,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     fractionOfFloodTarget: floodFraction,
     overallEfficiency: Eo,
     achievedRecovery,
-  }
+  })
 
   const detail: DesignDetail | null = wantDetail
     ? {
@@ -217,9 +222,9 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
           Kmean,
           traysRequired,
           trays,
-          // information: Colburn's entrainment correction E_a = E/(1 + E psi/(1 - psi)) with the worst-end psi
-          // (Ludwig p. 200; applied to the overall efficiency as an approximation); not used for the tray count
-          entrainmentCorrectedEfficiency: Eo / (1 + (Eo * psi) / (1 - psi)),
+          // information: Colburn's entrainment correction with the worst-end psi (efficiency/oconnell.ts,
+          // colburn1936); not used for the tray count
+          entrainmentCorrectedEfficiency: efficiencyWithEntrainment(Eo, psi),
         },
         hydraulics: {
           designEnd: sz.designEndIsBottom ? 'bottom' : 'top',

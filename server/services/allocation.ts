@@ -5,7 +5,8 @@ import { basisInForce } from './cost-bases.ts'
 import { recommendedRun, designSummaryOf } from './studies.ts'
 import { costDesign } from '../engine/costing/index.ts'
 import { allocateSolvent, type AllocationUnit } from '../engine/allocation/solvent.ts'
-import type { DesignSummary } from '../engine/contract.ts'
+import type { DesignSummary } from '../../shared/schemas/results.ts'
+import { summaryToSI } from '../../shared/summaryUnits.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { AllocationBody } from '../../shared/schemas/allocation.ts'
 import type { AuthUser } from '../types.d.ts'
@@ -27,7 +28,7 @@ export async function solve(siteId: number, body: AllocationBody, actor: AuthUse
     if (s.status === 'archived') throw new ValidationError('Archived study.', [{ path: `body.units.${i}.studyId`, message: 'is archived' }])
     const d = await designOf(s)
     if (!d) throw new ValidationError('The study has no design yet.', [{ path: `body.units.${i}.studyId`, message: 'has no run; run a design first' }])
-    const c = costDesign(d, basis)
+    const c = costDesign(summaryToSI(d), basis)
     const designFlow = d.solventVolumetricFlow
     const minFlow = u.minFlow ?? 0.5 * designFlow
     const maxFlow = u.maxFlow ?? 2 * designFlow

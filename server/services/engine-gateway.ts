@@ -8,8 +8,10 @@ import { priceDesign } from '../engine/costing/index.ts'
 import { optimise } from '../engine/optimisation/index.ts'
 import { optimiseAsync, uncertaintyAsync } from './optimise-pool.ts'
 import type { RobustSpec, UncertaintySpec } from '../../shared/schemas/uncertainty.ts'
-import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
-import type { DesignResult } from '../engine/contract.ts'
+import { NoFeasibleDesignError, type OptimiseResult } from '../engine/optimisation/core.ts'
+import type { DesignResult as EngineDesign } from '../engine/contract.ts'
+import type { DesignResult } from '../../shared/schemas/results.ts'
+import { designToPublic } from '../../shared/summaryUnits.ts'
 import { ValidationError, InfeasibleError, zodDetails } from '../errors.ts'
 import { rateCaseToSI, rateSI } from '../engine/rating/rate.ts'
 import type { WindowOptions } from '../engine/rating/window.ts'
@@ -76,30 +78,48 @@ export function parseSearch(raw: unknown, prefix: string): SearchSpec {
   return r.data
 }
 
+/** A design in the public units (kmol/h, kg/h, m3/h in its summary), priced when a basis applied. */
 export type PricedDesign = DesignResult & { totalAnnualCost?: number; costBreakdown?: unknown }
+
+/** An optimisation answer in the public units: the optimum's design summary converted. */
+export type PublicOptimiseResult = Omit<OptimiseResult, 'optimum'> & { optimum: Omit<OptimiseResult['optimum'], 'design'> & { design: DesignResult } }
+
+/**
+ * The engine's answers in the public units. The engine is SI throughout, its design summary
+ * included; the answer carries the summary's flows in kmol/h, kg/h and m3/h
+ * (shared/summaryUnits.ts). New objects: an answer the optimiser caches is never changed.
+ */
+export function publicDesign(d: EngineDesign, priced?: { totalAnnualCost: number; costBreakdown: unknown } | null): PricedDesign {
+  const out: PricedDesign = designToPublic(d)
+  if (priced) Object.assign(out, priced)
+  return out
+}
+
+export function publicOptimisation(r: OptimiseResult): PublicOptimiseResult {
+  return { ...r, optimum: { ...r.optimum, design: designToPublic(r.optimum.design) } }
+}
 
 export function runDesign(c: CaseSI, basis: CostBasisData | null, prefix = 'body'): PricedDesign {
   try {
-    const result: PricedDesign = designSI(c)
-    if (basis) Object.assign(result, priceDesign(result, basis))
-    return result
+    const d = designSI(c)
+    return publicDesign(d, basis ? priceDesign(d, basis) : null)
   } catch (e) {
     return toApiError(e, prefix)
   }
 }
 
-export function runOptimise(c: CaseSI, basis: CostBasisData, search: SearchSpec, prefix = 'body.case') {
+export function runOptimise(c: CaseSI, basis: CostBasisData, search: SearchSpec, prefix = 'body.case'): PublicOptimiseResult {
   try {
-    return optimise(c, basis, search)
+    return publicOptimisation(optimise(c, basis, search))
   } catch (e) {
     return toApiError(e, prefix)
   }
 }
 
 /** The same, on a worker thread (and cached): for request handlers. */
-export async function runOptimiseAsync(c: CaseSI, basis: CostBasisData, search: SearchSpec, prefix = 'body.case', robust?: RobustSpec) {
+export async function runOptimiseAsync(c: CaseSI, basis: CostBasisData, search: SearchSpec, prefix = 'body.case', robust?: RobustSpec): Promise<PublicOptimiseResult> {
   try {
-    return await optimiseAsync(c, basis, search, robust)
+    return publicOptimisation(await optimiseAsync(c, basis, search, robust))
   } catch (e) {
     return toApiError(e, prefix)
   }

@@ -6,7 +6,8 @@
 import { CostBasis } from '../db/models/index.ts'
 import type { Run } from '../db/models/index.ts'
 import type { ComponentLibrary } from '../engine/case.ts'
-import type { DesignSummary } from '../engine/contract.ts'
+import type { DesignSummary } from '../../shared/schemas/results.ts'
+import { summaryToSI } from '../../shared/summaryUnits.ts'
 import { costDesign, type CostBreakdown } from '../engine/costing/index.ts'
 import { daysInMonth, type MonthResult } from '../engine/tracking/operating.ts'
 import { ratingCaseOfDesign } from '../engine/rating/fromDesign.ts'
@@ -71,7 +72,7 @@ export async function monitoringOf(
     const costCache = new Map<CostBasisData, CostBreakdown>()
     const cost = (b: CostBasisData) => {
       let c = costCache.get(b)
-      if (!c) costCache.set(b, (c = costDesign(summary, b)))
+      if (!c) costCache.set(b, (c = costDesign(summaryToSI(summary), b)))
       return c
     }
     const ms = months.map((m, i) => {

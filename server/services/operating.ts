@@ -12,7 +12,9 @@ import { caseFromRequest } from './engine-gateway.ts'
 import { costDesign, type CostBreakdown } from '../engine/costing/index.ts'
 import { priceMonth, type MonthResult } from '../engine/tracking/operating.ts'
 import { operatingEntryBody, type OperatingEntryBody } from '../../shared/schemas/operating.ts'
-import type { DesignSummary } from '../engine/contract.ts'
+import type { DesignSummary } from '../../shared/schemas/results.ts'
+import { summaryToSI } from '../../shared/summaryUnits.ts'
+import { toSI } from '../../shared/units.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { AuthUser } from '../types.d.ts'
 import { monitoringOf, type MonitoringView } from './monitoring.ts'
@@ -63,6 +65,8 @@ export async function listEntries(siteId: number, studyId: number) {
     design = { summary: d.summary, runId: d.run.id, costBasisVersion: d.run.costBasisVersion }
     const library = await siteLibrary(siteId)
     const c = caseFromRequest(d.run.inputs, library, 'inputs')
+    // The engine works in SI: the stored (public) summary and the logged kmol/h are converted here.
+    const designSI = summaryToSI(d.summary)
     // Months under the same cost-basis version price the design the same way: cost it once per version.
     const designCosts = new Map<number, CostBreakdown>()
     months = []
@@ -71,14 +75,14 @@ export async function listEntries(siteId: number, studyId: number) {
       if (!b) throw new InfeasibleError(`No cost-basis version is in force on ${e.month}.`, [{ path: 'costBasis', message: 'no published version is effective on or before that month', code: 'noCostBasis' }])
       const basis = b.data as CostBasisData
       let designCost = designCosts.get(b.id)
-      if (!designCost) designCosts.set(b.id, (designCost = costDesign(d.summary, basis)))
+      if (!designCost) designCosts.set(b.id, (designCost = costDesign(designSI, basis)))
       const m = priceMonth(
-        { month: e.month, gasFlow: e.gasFlow, solventFlow: e.solventFlow, outletMoleFraction: e.outletMoleFraction, recovery: e.recovery, powerKw: e.powerKw },
+        { month: e.month, gasFlow: toSI('molarFlow', e.gasFlow), solventFlow: toSI('molarFlow', e.solventFlow), outletMoleFraction: e.outletMoleFraction, recovery: e.recovery, powerKw: e.powerKw },
         {
-          design: d.summary,
+          design: designSI,
           designCost,
           inletMoleFraction: e.inletMoleFraction ?? c.gas.soluteMoleFraction,
-          soluteMolarMass: c.solute.molarMass * 1000,
+          soluteMolarMass: c.solute.molarMass,
           operatingHoursPerYear: basis.general.operatingHours,
           prices: { electricity: basis.utilities.electricityPrice, solvent: basis.utilities.solventCost, product: basis.utilities.productValue, emission: basis.utilities.emissionCharge },
         },

@@ -7,7 +7,7 @@ import { userNames } from './people.ts'
 import type { AuthUser } from '../types.d.ts'
 import type { Role, StudyStatus } from '../../shared/schemas/common.ts'
 import type { StudyRow, RunRow, OptionRow } from '../../shared/schemas/studies.ts'
-import type { DesignSummary } from '../engine/contract.ts'
+import type { DesignSummary } from '../../shared/schemas/results.ts'
 
 /** What the caller may do with a study, for the client to show or hide controls. */
 export interface StudyPermissions {

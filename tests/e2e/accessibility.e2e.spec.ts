@@ -41,7 +41,7 @@ async function axeProblems(p: Page): Promise<string[]> {
 /** Wait until the page's own loading has settled: no progress bars or skeletons are left. */
 async function settled(p: Page): Promise<void> {
   await p.locator('.v-skeleton-loader').first().waitFor({ state: 'detached' }).catch(() => undefined)
-  await expect.poll(() => p.locator('.v-progress-linear--active, .v-progress-circular--indeterminate').count(), { timeout: 20000 }, WAIT).toBe(0)
+  await expect.poll(() => p.locator('.v-progress-linear--active, .v-progress-circular--indeterminate').count(), WAIT).toBe(0)
   await p.waitForTimeout(300) // transitions of dialogs and tabs end
 }
 

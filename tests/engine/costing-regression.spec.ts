@@ -6,10 +6,12 @@
  */
 import { describe, expect, it } from 'vitest'
 import type { DesignSummary } from '../../server/engine/contract.ts'
+import { summaryToSI } from '../../shared/summaryUnits.ts'
 import { costDesign } from '../../server/engine/costing/costDesign.ts'
 import { loadPreset } from '../../server/engine/costing/presets.ts'
 
-const s: DesignSummary = {
+// typed in the public units (kmol/h, kg/h, m3/h), handed to the engine in SI like a stored run
+const s: DesignSummary = summaryToSI({
   minimumSolventFlow: 60, solventFlow: 90, absorptionFactor: 1.4, theoreticalStages: 5.2, actualTrays: 11,
   outletGasSoluteMoleFraction: 0.0002, richSolventSoluteMoleFraction: 0.06, gasDensity: 1.9, flowParameter: 0.01,
   capacityFactor: 0.1, floodingVelocity: 2.5, downcomerAreaFraction: 0.1, holeAreaFraction: 0.12, traySpacing: 0.6,
@@ -17,7 +19,7 @@ const s: DesignSummary = {
   recovery: 0.985, solventFactor: 1.5, floodFraction: 0.78, gasFlow: 420, gasVolumetricFlow: 2.65, solventMassFlow: 1620,
   solventVolumetricFlow: 1.63, soluteInGas: 290, soluteAbsorbed: 285.65, soluteLost: 4.35, operatingPressure: 115000,
   designPressure: 180000, shellThickness: 0.0075, shellMass: 3200, percentFlood: 76, fractionOfFloodTarget: 0.75,
-}
+})
 
 describe('regression snapshot (own output, not a reference): demo cost bases', () => {
   it('Cobalt Ridge demo basis', () => {

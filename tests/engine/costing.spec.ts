@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import type { DesignSummary } from '../../server/engine/contract.ts'
+import type { DesignSummary as PublicDesignSummary } from '../../shared/schemas/results.ts'
+import { summaryToSI } from '../../shared/summaryUnits.ts'
 import {
   bareModuleFactorTurton,
   capitalRecoveryFactor,
@@ -118,9 +120,12 @@ describe('Turton et al. 3rd ed., Appendix A and Example 7.13', () => {
   })
 })
 
-/** A design summary typed by hand (not an engine output) for pricing checks. */
-function summary(over: Partial<DesignSummary> = {}): DesignSummary {
-  return {
+/**
+ * A design summary typed by hand (not an engine output) for pricing checks, written in the public
+ * units (kmol/h, kg/h, m3/h) and handed to the engine in SI through the edge's conversion.
+ */
+function summary(over: Partial<PublicDesignSummary> = {}): DesignSummary {
+  return summaryToSI({
     minimumSolventFlow: 300,
     solventFlow: 450,
     absorptionFactor: 1.5,
@@ -157,7 +162,7 @@ function summary(over: Partial<DesignSummary> = {}): DesignSummary {
     percentFlood: 72,
     fractionOfFloodTarget: 0.75,
     ...over,
-  }
+  })
 }
 
 describe('costDesign — items, escalation, installation and annualisation', () => {
@@ -185,7 +190,7 @@ describe('costDesign — items, escalation, installation and annualisation', () 
     const s = summary({ selectedDiameter: 3, columnHeight: 30 })
     const rho = s.solventMassFlow / s.solventVolumetricFlow
     const head = 30 + (s.operatingPressure - 101325) / (rho * 9.80665) + turton.drives.pumpHeadAllowance
-    const W = (rho * 9.80665 * (s.solventVolumetricFlow / 3600) * head) / turton.drives.pumpEfficiency / 1000
+    const W = (rho * 9.80665 * s.solventVolumetricFlow * head) / turton.drives.pumpEfficiency / 1000
     const lw = Math.log10(W)
     near(r.capital.find((c) => c.key === 'pump')?.purchased ?? 0, 10 ** (3.3892 + 0.0536 * lw + 0.1538 * lw * lw), 1e-9)
   })

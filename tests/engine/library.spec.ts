@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest'
+import { fromSI } from '../../shared/units.ts'
 import { COMPONENT_LIBRARY, evaluateCase } from '../../server/engine/index.ts'
 import { findComponent, mergeLibraries } from '../../server/engine/case.ts'
 
@@ -46,11 +47,11 @@ describe('component library (data/components.json)', () => {
       solventFactor: 1.4,
     }
     const r = evaluateCase(base)
-    expect(r.summary.soluteInGas).toBeCloseTo(100 * 0.01 * 50, 9)
+    expect(fromSI('massFlow', r.summary.soluteInGas, 'kg/h')).toBeCloseTo(100 * 0.01 * 50, 9) // the summary is SI (kg/s)
     const site = { components: { 'site solvent x': { molarMass: { value: 77, unit: 'kg/kmol', source: 'site lab' }, hazards: { flags: ['toxic'], source: 'site SDS' } } } }
     const lib = mergeLibraries(COMPONENT_LIBRARY, site)
     const r2 = evaluateCase({ ...base, solute: 'site solvent x' }, { library: lib })
-    expect(r2.summary.soluteInGas).toBeCloseTo(100 * 0.01 * 77, 9)
+    expect(fromSI('massFlow', r2.summary.soluteInGas, 'kg/h')).toBeCloseTo(100 * 0.01 * 77, 9)
     expect(r2.cautions.some((c) => /toxic/.test(c))).toBe(true)
   })
 })

@@ -11,6 +11,7 @@
  * shares nothing with the engine but the equilibrium model itself.
  */
 import { describe, expect, it } from 'vitest'
+import { toSI } from '../../shared/units.ts'
 import fc from 'fast-check'
 import { caseToSI, evaluateCase, InfeasibleDesignError } from '../../server/engine/index.ts'
 import { equilibriumCurveOf } from '../../server/engine/design.ts'
@@ -131,7 +132,7 @@ describe('minimum solvent from the exact solute-free pinch analysis, every metho
     expect(ref.slopeMin / endPinch).toBeGreaterThan(1.05)
     for (const method of ['auto', 'kremser', 'stageByStage']) {
       const r = evaluateCase({ ...raw, method })
-      const Vp = 300 * 0.98
+      const Vp = toSI('molarFlow', 300 * 0.98) // the summary is SI (mol/s)
       expect(r.summary.minimumSolventFlow / (ref.slopeMin * Vp)).toBeCloseTo(1, 6)
     }
   })
@@ -154,7 +155,7 @@ describe('minimum solvent from the exact solute-free pinch analysis, every metho
           return
         }
         checked++
-        const Vp = 300 * (1 - p.y)
+        const Vp = toSI('molarFlow', 300 * (1 - p.y)) // the summary is SI (mol/s)
         // two independent tangent searches (grid + refinement) agree to about 1e-6; 1e-5 leaves room for that
         expect(Math.abs(r.summary.minimumSolventFlow / (ref.slopeMin * Vp) - 1)).toBeLessThan(1e-5)
         if (r.profile.method === 'stageByStage') {

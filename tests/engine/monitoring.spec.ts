@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest'
+import { summaryToPublic } from '../../shared/summaryUnits.ts'
 import { readFileSync } from 'node:fs'
 import { evaluateCase, COMPONENT_LIBRARY } from '../../server/engine/index.ts'
 import { ratingCaseOfDesign } from '../../server/engine/rating/fromDesign.ts'
@@ -7,7 +8,8 @@ import { monitorMonths, splitCostGap, type MonitorEntry } from '../../server/eng
 
 const raw = JSON.parse(readFileSync('data/examples/design.json', 'utf8')) as Record<string, unknown>
 const design = evaluateCase(raw)
-const s = design.summary
+// the design as a stored run holds it: the summary in the public units (kmol/h), as the rating case and the log use
+const s = summaryToPublic(design.summary)
 const rc = rateCaseToSI(ratingCaseOfDesign(raw, s), COMPONENT_LIBRARY)
 const atDesign = rateSI(rc)
 const ctx = { rating: rc, designRecovery: s.recovery }

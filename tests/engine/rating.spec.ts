@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest'
+import { summaryToPublic } from '../../shared/summaryUnits.ts'
 import { readFileSync } from 'node:fs'
 import { evaluateCase } from '../../server/engine/index.ts'
 import { rateBatch, rateCase } from '../../server/engine/rating/index.ts'
@@ -14,7 +15,7 @@ const readJson = (f: string) => JSON.parse(readFileSync(f, 'utf8')) as Record<st
 function ratingOfDesign(file: string, exactStages: boolean) {
   const raw = readJson(`data/examples/${file}`)
   const d = evaluateCase(raw)
-  const s = d.summary
+  const s = summaryToPublic(d.summary) // the rating case takes the solvent flow in kmol/h, as a case file
   const hyd = (d.detail as { hydraulics: { weirLength: number } }).hydraulics
   const { recovery: _r, solventFactor: _f, costBasis: _c, ...rest } = raw
   const column = {

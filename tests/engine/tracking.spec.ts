@@ -2,12 +2,20 @@ import { describe, it, expect } from 'vitest'
 import { priceMonth, recoveryFromOutlet, daysInMonth, type TrackingContext } from '../../server/engine/tracking/operating.ts'
 import type { DesignSummary } from '../../server/engine/contract.ts'
 import type { CostBreakdown } from '../../server/engine/costing/costDesign.ts'
+import { toSI } from '../../shared/units.ts'
+import type { OperatingEntryInput } from '../../server/engine/tracking/operating.ts'
+
+// The engine works in SI: the hand calculation's kmol/h and m3/h go in through the units library.
+const kmolh = (v: number) => toSI('molarFlow', v)
+const m3h = (v: number) => toSI('liquidVolumetricFlow', v)
+/** A logged month with its flows in kmol/h, as the operating log holds them. */
+const month = (e: OperatingEntryInput): OperatingEntryInput => ({ ...e, gasFlow: kmolh(e.gasFlow), solventFlow: kmolh(e.solventFlow) })
 
 // Hand calculation of one month, every number worked out below with a calculator.
 // Design: 400 kmol/h gas, y_in = 0.015, solute 46 kg/kmol, 300 kmol/h solvent = 5.4 m3/h,
 // recovery 0.98, 70 % of flood, minimum solvent 200 kmol/h.
 const design = {
-  gasFlow: 400, solventFlow: 300, solventVolumetricFlow: 5.4, recovery: 0.98, percentFlood: 70, minimumSolventFlow: 200,
+  gasFlow: kmolh(400), solventFlow: kmolh(300), solventVolumetricFlow: m3h(5.4), recovery: 0.98, percentFlood: 70, minimumSolventFlow: kmolh(200),
 } as unknown as DesignSummary
 
 // The design priced with the basis: per year, 8000 h.
@@ -21,14 +29,14 @@ const ctx: TrackingContext = {
   design,
   designCost,
   inletMoleFraction: 0.015,
-  soluteMolarMass: 46,
+  soluteMolarMass: 0.046, // kg/mol
   operatingHoursPerYear: 8000,
   prices: { electricity: 0.1, solvent: 0.5, product: 0.8, emission: 0.1 },
 }
 
 describe('operating-cost tracking, against a hand calculation', () => {
   it('prices a 30-day month at 90 % throughput with a measured recovery and power', () => {
-    const m = priceMonth({ month: '2026-06-01', gasFlow: 360, solventFlow: 270, recovery: 0.97, powerKw: 11 }, ctx)
+    const m = priceMonth(month({ month: '2026-06-01', gasFlow: 360, solventFlow: 270, recovery: 0.97, powerKw: 11 }), ctx)
     // hours = 30 d × 24 h × 8000/8760 = 657.5342 h
     expect(m.hours).toBeCloseTo(657.5342, 3)
     // solvent: 270 kmol/h × (5.4/300 m3/kmol) = 4.86 m3/h × 657.5342 h = 3195.616 m3 × 0.5 = 1597.808
@@ -56,14 +64,14 @@ describe('operating-cost tracking, against a hand calculation', () => {
   })
 
   it('flags flooding risk, weeping risk and solvent below minimum', () => {
-    const high = priceMonth({ month: '2026-02-01', gasFlow: 560, solventFlow: 420, recovery: 0.98 }, ctx)
+    const high = priceMonth(month({ month: '2026-02-01', gasFlow: 560, solventFlow: 420, recovery: 0.98 }), ctx)
     // 70 % × 1.4 = 98 % of flood: warn; at 1.5 (105 %): fail
     expect(high.percentFloodEstimate).toBeCloseTo(98, 6)
     expect(high.flags.find((f) => f.code === 'floodingRisk')?.severity).toBe('warn')
-    expect(priceMonth({ month: '2026-02-01', gasFlow: 600, solventFlow: 450, recovery: 0.98 }, ctx).flags.find((f) => f.code === 'floodingRisk')?.severity).toBe('fail')
-    expect(priceMonth({ month: '2026-02-01', gasFlow: 200, solventFlow: 150, recovery: 0.98 }, ctx).flags.map((f) => f.code)).toContain('weepingRisk')
+    expect(priceMonth(month({ month: '2026-02-01', gasFlow: 600, solventFlow: 450, recovery: 0.98 }), ctx).flags.find((f) => f.code === 'floodingRisk')?.severity).toBe('fail')
+    expect(priceMonth(month({ month: '2026-02-01', gasFlow: 200, solventFlow: 150, recovery: 0.98 }), ctx).flags.map((f) => f.code)).toContain('weepingRisk')
     // L/G = 180/400 = 0.45 < (L/G)min = 200/400 = 0.5
-    expect(priceMonth({ month: '2026-02-01', gasFlow: 400, solventFlow: 180, recovery: 0.98 }, ctx).flags.map((f) => f.code)).toContain('solventBelowMinimum')
+    expect(priceMonth(month({ month: '2026-02-01', gasFlow: 400, solventFlow: 180, recovery: 0.98 }), ctx).flags.map((f) => f.code)).toContain('solventBelowMinimum')
   })
 
   it('flags a gas flow above the design and a solvent flow below what the design needs for its recovery', () => {
@@ -84,7 +92,7 @@ describe('operating-cost tracking, against a hand calculation', () => {
   })
 
   it('without a power reading, scales the design pump and blower power; without a measurement, assumes design recovery and says so', () => {
-    const m = priceMonth({ month: '2026-06-01', gasFlow: 400, solventFlow: 300 }, ctx)
+    const m = priceMonth(month({ month: '2026-06-01', gasFlow: 400, solventFlow: 300 }), ctx)
     // 5 kW + 7.5 kW = 12.5 kW × 657.5342 h × 0.1 = 821.918
     expect(m.actual.electricity).toBeCloseTo(821.918, 2)
     expect(m.flags.map((f) => f.code)).toContain('noRecoveryMeasured')

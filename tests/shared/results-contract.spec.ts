@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest'
 import { caseToSI, evaluateCase } from '../../server/engine/index.ts'
 import { priceDesign, loadPreset, type CostBreakdown as EngineCostBreakdown } from '../../server/engine/costing/index.ts'
 import { optimise } from '../../server/engine/optimisation/optimise.ts'
-import type { OptimiseResult } from '../../server/engine/optimisation/core.ts'
+import { publicDesign, publicOptimisation, type PublicOptimiseResult } from '../../server/services/engine-gateway.ts'
 import { searchSpecSchema } from '../../shared/schemas/search.ts'
 import {
   pricedDesignSchema,
@@ -14,8 +14,8 @@ import {
 } from '../../shared/schemas/results.ts'
 import demo from '../../data/demo-studies.json' with { type: 'json' }
 
-// Compile-time: what the engine returns is the shared contract (npm run typecheck fails otherwise).
-const optimisationAnswer = (r: OptimiseResult): KnownFields<OptimisationResult> => r
+// Compile-time: what the edge returns is the shared contract (npm run typecheck fails otherwise).
+const optimisationAnswer = (r: PublicOptimiseResult): KnownFields<OptimisationResult> => r
 const costAnswer = (b: EngineCostBreakdown): KnownFields<CostBreakdown> => b
 
 const demoCase = demo.studies[0]!.inputs
@@ -23,8 +23,8 @@ const basis = loadPreset('halvard-cobalt-ridge')
 
 describe('the engine answers match the shared answer schemas', () => {
   it('a priced design parses, and the parse keeps every field the engine sent', () => {
-    const design = evaluateCase(demoCase)
-    const priced = { ...design, ...priceDesign(design, basis) }
+    const engine = evaluateCase(demoCase)
+    const priced = publicDesign(engine, priceDesign(engine, basis)) as ReturnType<typeof publicDesign> & ReturnType<typeof priceDesign>
     const parsed = pricedDesignSchema.parse(JSON.parse(JSON.stringify(priced)))
     expect(Object.keys(parsed).sort()).toEqual(Object.keys(priced).sort())
     expect(Object.keys(parsed.summary).sort()).toEqual(Object.keys(priced.summary).sort())
@@ -32,7 +32,7 @@ describe('the engine answers match the shared answer schemas', () => {
   })
 
   it('an optimisation parses, as itself and as a stored run result', () => {
-    const res = optimise(caseToSI(demoCase), basis, searchSpecSchema.parse({}))
+    const res = publicOptimisation(optimise(caseToSI(demoCase), basis, searchSpecSchema.parse({})))
     const json = JSON.parse(JSON.stringify(optimisationAnswer(res))) as unknown
     const parsed = optimisationResultSchema.parse(json)
     expect(Object.keys(parsed).sort()).toEqual(Object.keys(res).sort())

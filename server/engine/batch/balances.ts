@@ -9,7 +9,7 @@
  * Equations: solute-free ratios X = x/(1-x), Y = y/(1-y); L'min/V' = (Y_in - Y_1)/(X*_N - X_0)
  * at the rich-end pinch (Kremser) or the general pinch (stage by stage); L' = f L'min;
  * Kremser: N = ln[((y_in - K x0)/(y_1 - K x0))(1 - 1/A) + 1/A] / ln A with A from the geometric
- * mean of the ends. Units: flows in mol/s in, kmol/h out (as the design summary).
+ * mean of the ends. Units: SI, flows in mol/s in and out (as the design summary).
  * Validity: straight equilibrium line; Kremser for dilute gas (y_in <= 0.05).
  * Source: kremser1930; benitez2009 ch. 5; treybal1980 ch. 8 (solute-free basis).
  * Example: designBalancesBatch({ gasFlow: [116.67], yIn: [0.015], x0: [0], K: [0.62],
@@ -43,9 +43,9 @@ export interface BalanceBatchInput {
 }
 
 export interface BalanceBatchOutput {
-  /** Minimum lean solvent [kmol/h]. */
+  /** Minimum lean solvent [mol/s]. */
   minimumSolventFlow: Float64Array
-  /** Lean solvent [kmol/h]. */
+  /** Lean solvent [mol/s]. */
   solventFlow: Float64Array
   /** Absorption factor, geometric mean of the ends [-]. */
   absorptionFactor: Float64Array
@@ -59,7 +59,6 @@ export interface BalanceBatchOutput {
   status: Uint8Array
 }
 
-const KMOLH = 3.6
 const MAX_STAGES = 2000
 
 /** y = K x with K changed case by case (one object for the whole batch). */
@@ -154,8 +153,8 @@ export function designBalancesBatch(input: BalanceBatchInput, method: 'kremser' 
     }
     if (status !== 0) Lmin0 = L0 = A = N = y1 = xN = 0
     o.status[i] = status
-    o.minimumSolventFlow[i] = Lmin0 * KMOLH
-    o.solventFlow[i] = L0 * KMOLH
+    o.minimumSolventFlow[i] = Lmin0
+    o.solventFlow[i] = L0
     o.absorptionFactor[i] = A
     o.theoreticalStages[i] = N
     o.outletGasSoluteMoleFraction[i] = y1

@@ -6,6 +6,7 @@
 import type { CheckResult } from '../contract.ts'
 import { WEEP_FROUDE_LIMIT } from '../hydraulics/tray.ts'
 import type { TrayState } from './trays.ts'
+import { cite } from '../references.ts'
 
 export interface CheckLimit {
   key: CheckResult['key']
@@ -17,7 +18,7 @@ export interface CheckLimit {
   limit: number | null
   /** where a warning turns into a failure, as a multiple of the limit */
   failAt: number | null
-  /** method of the value and source of the limit (reference keys in references.ts) */
+  /** method of the value and source of the limit (reference keys in references.ts, checked by `cite`) */
   source: string
   advice: string
 }
@@ -31,7 +32,7 @@ export const CHECK_LIMITS: Record<string, CheckLimit> = {
     direction: 'max',
     limit: 85,
     failAt: 100 / 85,
-    source: 'Fair flooding correlation (fair1961 via treybal1980 / benitez2009); 85 % limit: commonPractice',
+    source: cite`Fair flooding correlation (${'fair1961'} via ${'treybal1980'} / ${'benitez2009'}); 85 % limit: ${'commonPractice'}`,
     advice: 'Increase the diameter or the tray spacing, or lower the gas load',
   },
   pressureDropPerTray: {
@@ -41,7 +42,7 @@ export const CHECK_LIMITS: Record<string, CheckLimit> = {
     direction: 'max',
     limit: 1000,
     failAt: 1.5,
-    source: 'dry tray (Liebson orifice fit) + clear liquid (bennett1983) + residual head, benitez2009 ch. 4; 1000 Pa limit: commonPractice',
+    source: cite`dry tray (Liebson orifice fit, ${'liebson1957'}) + clear liquid (${'bennett1983'}) + residual head, ${'benitez2009'} ch. 4; 1000 Pa limit: ${'commonPractice'}`,
     advice: 'Increase the hole area (larger holes or smaller pitch) or lower the weir',
   },
   weeping: {
@@ -51,7 +52,7 @@ export const CHECK_LIMITS: Record<string, CheckLimit> = {
     direction: 'min',
     limit: WEEP_FROUDE_LIMIT,
     failAt: 0.8,
-    source: 'hole Froude number >= 0.5, benitez2009 ch. 4 (Illus. 4.8)',
+    source: cite`hole Froude number >= 0.5, ${'benitez2009'} ch. 4 (Illus. 4.8)`,
     advice: 'Reduce the hole area (smaller holes, larger pitch, blanking) or the weir height',
   },
   entrainment: {
@@ -61,7 +62,7 @@ export const CHECK_LIMITS: Record<string, CheckLimit> = {
     direction: 'max',
     limit: 0.1,
     failAt: 1.5,
-    source: 'fractional entrainment from benitez2009 eqs 4.45-4.47; 0.10 limit: commonPractice',
+    source: cite`fractional entrainment from ${'benitez2009'} eqs 4.45-4.47; 0.10 limit: ${'commonPractice'}`,
     advice: 'Lower the fraction of flood or increase the tray spacing',
   },
   turndown: {
@@ -71,7 +72,7 @@ export const CHECK_LIMITS: Record<string, CheckLimit> = {
     direction: 'min',
     limit: WEEP_FROUDE_LIMIT,
     failAt: null, // a warning only: the turndown range is a choice
-    source: 'hole Froude number >= 0.5 (benitez2009) at the turndown gas rate; turndown fraction: commonPractice',
+    source: cite`hole Froude number >= 0.5 (${'benitez2009'}) at the turndown gas rate; turndown fraction: ${'commonPractice'}`,
     advice: 'The trays may weep at the lowest gas rate: reduce the hole area or accept a smaller turndown range',
   },
   downcomerBackup: {
@@ -81,7 +82,7 @@ export const CHECK_LIMITS: Record<string, CheckLimit> = {
     direction: 'max',
     limit: null, // (t + h_w)/2, from the design
     failAt: 1 / 0.9,
-    source: 'backup = weir + crest (Francis, sinnott2005) + tray head + apron loss (treybal1980); limit (t + hw)/2 with a warning above 90 % of it, sinnott2005',
+    source: cite`backup = weir + crest (Francis, ${'sinnott2005'}) + tray head + apron loss (${'treybal1980'}); limit (t + hw)/2 with a warning above 90 % of it, ${'sinnott2005'}`,
     advice: 'Increase the tray spacing or the downcomer clearance, or reduce the tray pressure drop',
   },
   downcomerResidence: {
@@ -91,7 +92,7 @@ export const CHECK_LIMITS: Record<string, CheckLimit> = {
     direction: 'min',
     limit: 3,
     failAt: 2 / 3,
-    source: 'residence = A_d h_backup / q_L, sinnott2005; >= 3 s: commonPractice',
+    source: cite`residence = A_d h_backup / q_L, ${'sinnott2005'}; >= 3 s: ${'commonPractice'}`,
     advice: 'Increase the downcomer area',
   },
 }

@@ -10,6 +10,7 @@ import type { CaseSI } from '../case.ts'
 import type { EngineWarning } from '../contract.ts'
 import { InfeasibleDesignError } from '../errors.ts'
 import { densityIdealGas } from '../properties/gas.ts'
+import { cite } from '../references.ts'
 import {
   capacityFactorFair,
   capacityFactorFairWarnings,
@@ -48,9 +49,9 @@ export interface EndSizing {
 /** Validity of the Fair flooding correlation, as data (fair1961 as quoted by Perry; treybal1980). */
 export const FAIR_VALIDITY = {
   /** largest hole diameter [m] */
-  holeDiameterMax: { value: 0.013, unit: 'm', source: 'fair1961 (holes up to 13 mm)' },
+  holeDiameterMax: { value: 0.013, unit: 'm', source: cite`${'fair1961'} (holes up to 13 mm)` },
   /** largest weir height as a fraction of the tray spacing [-] */
-  weirToSpacingMax: { value: 0.15, unit: '-', source: 'fair1961 (weir below 15 % of the spacing)' },
+  weirToSpacingMax: { value: 0.15, unit: '-', source: cite`${'fair1961'} (weir below 15 % of the spacing)` },
 } as const
 
 /** The Fair validity notes for a tray at spacing t, once per design whatever the spacing mode. */

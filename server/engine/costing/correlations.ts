@@ -19,7 +19,8 @@ import type { CostCurveData } from '../../../shared/schemas/costBasis.ts'
  * @returns       purchased cost [currency at curve.baseIndex]
  * Validity: curve.sizeMin ≤ S ≤ curve.sizeMax (outside: caller warns; no clamp).
  * Source: the curve's own `source` field (seider2009, turton2009 for the presets).
- * Example: Turton sieve tray, A = 7.0686 m² -> 10^(2.9949 + 0.4465·0.84933 + 0.3961·0.84933²) = 4569.4 USD (CEPCI 397).
+ * Example: Turton sieve tray, A = 7.0686 m² -> 10^(2.9949 + 0.4465·0.84933 + 0.3961·0.84933²) = 4569.4 USD (CEPCI 397):
+ * Example: costFromCurve(7.0686, { sizeFactor: 1, coefficients: [2.9949, 0.4465, 0.3961], logBase: '10', linearCoefficient: 0, multiplier: 1 }) = 4569.4
  */
 export function costFromCurve(sizeSI: number, curve: CostCurveData): number {
   const S = sizeSI * curve.sizeFactor
@@ -42,7 +43,7 @@ export function costFromCurve(sizeSI: number, curve: CostCurveData): number {
  * @returns           [currency at index I_B]
  * Validity: indices > 0 of the same series (e.g. CEPCI).
  * Source: cepci (index values), turton2009 eq. 7.3.
- * Example: 4569.4 USD at CEPCI 397 -> 5754.9 USD at CEPCI 500.
+ * Example: escalateCost(4569.4, 397, 500) = 5754.9 (USD at CEPCI 397 -> at CEPCI 500)
  */
 export function escalateCost(cost: number, baseIndex: number, targetIndex: number): number {
   return (cost * targetIndex) / baseIndex
@@ -58,7 +59,7 @@ export function escalateCost(cost: number, baseIndex: number, targetIndex: numbe
  * @returns [1/yr]
  * Validity: i > 0, n ≥ 1 (at i -> 0 the limit is 1/n).
  * Source: crf.
- * Example: i = 0.10, n = 10 -> 0.162745.
+ * Example: capitalRecoveryFactor(0.1, 10) = 0.162745 (i = 10 %, n = 10 yr)
  */
 export function capitalRecoveryFactor(i: number, n: number): number {
   if (i <= 0) return 1 / n
@@ -77,7 +78,7 @@ export function capitalRecoveryFactor(i: number, n: number): number {
  * @returns  [currency at the correlation's base index]
  * Validity (Seider towers): 3 ≤ D ≤ 24 ft, 27 ≤ L ≤ 170 ft.
  * Source: seider2009 (from memory; confirm).
- * Example: D = 5 ft, L = 50 ft -> 19,182 USD (CE 500).
+ * Example: platformsCost(1.524, 15.24, 300.9, 0.63316, 0.80161, 3.28084) = 19182 USD (D = 5 ft, L = 50 ft, CE 500)
  */
 export function platformsCost(D: number, L: number, a: number, p: number, q: number, lengthFactor: number): number {
   if (a === 0) return 0
@@ -95,7 +96,8 @@ export function platformsCost(D: number, L: number, a: number, p: number, q: num
  * @returns  [-]
  * Validity: N ≥ 1.
  * Source: seider2009 (from memory), turton2009 Appendix A.
- * Example: Seider N = 5 -> 1.8369; N = 10 -> 1.4997. Turton N = 5 -> 2.328.
+ * Example: trayCountFactor(5, 'geometric', [2.25, 1.0414], 20) = 1.8369 (Seider; N = 10 gives 1.4997)
+ * Example: trayCountFactor(5, 'logPolynomial10', [0.4771, 0.08516, -0.3473], 20) = 2.328 (Turton)
  */
 export function trayCountFactor(
   N: number,
@@ -121,7 +123,7 @@ export function trayCountFactor(
  * @returns  [-]
  * Validity: assumes S = 944 bar, E = 0.9, CA = 3.15 mm, t_min = 6.3 mm (as published).
  * Source: turton2009 eq. 7.10.
- * Example: P = 20 barg, D = 3 m -> 6.4709.
+ * Example: pressureFactorVesselTurton(20, 3) = 6.4709 (P = 20 barg, D = 3 m)
  */
 export function pressureFactorVesselTurton(P: number, D: number): number {
   if (P < -0.5) return 1.25
@@ -136,7 +138,7 @@ export function pressureFactorVesselTurton(P: number, D: number): number {
  *
  * @returns [-]
  * Source: turton2009 eq. A.4; vessels B1 = 2.25, B2 = 1.82; centrifugal pumps B1 = 1.89, B2 = 1.35.
- * Example: vessel, F_M = 3.11, F_P = 6.4709 -> 38.876.
+ * Example: bareModuleFactorTurton(2.25, 1.82, 3.11, 6.4709) = 38.877 (vessel, F_M = 3.11, F_P = 6.4709)
  */
 export function bareModuleFactorTurton(B1: number, B2: number, FM: number, FP: number): number {
   return B1 + B2 * FM * FP

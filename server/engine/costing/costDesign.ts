@@ -27,6 +27,7 @@ import { vesselShell } from '../vessel/shell.ts'
 
 const G = 9.80665 // m/s2, standard gravity
 const ATM = 101325 // Pa
+const SECONDS_PER_HOUR = 3600 // operating hours (cost basis) x 3600 s = seconds of flow in SI
 
 export {
   capitalItemKeys,
@@ -93,7 +94,8 @@ function curveWarn(
 /**
  * Price a design with a site cost basis.
  *
- * @param s      the design summary (SI; flows as documented in contract.ts)
+ * @param s      the design summary in SI (flows in m3/s and kg/s; a stored, public summary goes
+ *               through summaryToSI in shared/summaryUnits.ts first)
  * @param basis  the site cost basis
  * @returns      capital and operating items, TAC (currency/yr) and cost per kg of solute recovered
  */
@@ -185,7 +187,7 @@ function computeCost(s: DesignSummary, basis: CostBasisData, warnings: EngineWar
   const trayP = (N * FNT * tr.typeFactor * FTM * costFromCurve(traySizeSI, tr.curve) * I) / tr.curve.baseIndex
 
   // --- solvent pump: head = column height + gauge pressure at the top + allowance
-  const Qs = s.solventVolumetricFlow / 3600 // m3/s
+  const Qs = s.solventVolumetricFlow // m3/s
   const rhoL = s.solventVolumetricFlow > 0 ? s.solventMassFlow / s.solventVolumetricFlow : 1000
   const gaugeHead = Math.max(0, s.operatingPressure - ATM) / (rhoL * G)
   const head = H + gaugeHead + drv.pumpHeadAllowance // m
@@ -240,10 +242,10 @@ function computeCost(s: DesignSummary, basis: CostBasisData, warnings: EngineWar
 
   // --- operating, per year
   const u = basis.utilities
-  const solventM3 = s.solventVolumetricFlow * hours
+  const solventM3 = s.solventVolumetricFlow * SECONDS_PER_HOUR * hours
   const pumpKWh = (pumpElectric / 1000) * hours
   const blowerKWh = (blowerElectric / 1000) * hours
-  const lostKg = s.soluteLost * hours
+  const lostKg = s.soluteLost * SECONDS_PER_HOUR * hours
   const op = {
     solvent: solventM3 * u.solventCost,
     pumpElectricity: pumpKWh * u.electricityPrice,
@@ -254,7 +256,7 @@ function computeCost(s: DesignSummary, basis: CostBasisData, warnings: EngineWar
   const operatingCost = op.solvent + op.pumpElectricity + op.blowerElectricity + op.lostProduct + op.emissionCharge
   const annualisedCapital = installedCapital * crf
   const totalAnnualCost = annualisedCapital + operatingCost
-  const recoveredKg = s.soluteAbsorbed * hours
+  const recoveredKg = s.soluteAbsorbed * SECONDS_PER_HOUR * hours
   if (!warnings) return totalAnnualCost
 
   const annual: Record<CostItemKey, number> = {

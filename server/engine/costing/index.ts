@@ -2,4 +2,4 @@
 export * from './correlations.ts'
 export * from './costDesign.ts'
 export { listPresets, loadPreset, hasPreset, DEFAULT_PRESET, type PresetInfo } from './presets.ts'
-export { costingReferences, type Reference } from './references.ts'
+export { costingReferences, type CostingReferenceKey, type Reference } from './references.ts'

@@ -13,7 +13,18 @@ export interface Reference {
   note?: string
 }
 
-export const costingReferences: Record<string, Reference> = {
+export const costingReferences = {
+  press2007: {
+    key: 'press2007',
+    authors: 'W. H. Press, S. A. Teukolsky, W. T. Vetterling, B. P. Flannery',
+    title: 'Numerical Recipes: The Art of Scientific Computing',
+    edition: '3rd',
+    publisher: 'Cambridge University Press',
+    year: 2007,
+    isbn: '978-0-521-88068-8',
+    where: 'Sec. 15.4, general linear least squares (normal equations)',
+    note: 'From memory.',
+  },
   seider2009: {
     key: 'seider2009',
     authors: 'W. D. Seider, J. D. Seader, D. R. Lewin, S. Widagdo',
@@ -63,4 +74,7 @@ export const costingReferences: Record<string, Reference> = {
     year: 1961,
     note: 'doi:10.1145/321062.321069; the pattern search the optimiser refines with.',
   },
-}
+} as const satisfies Record<string, Reference>
+
+/** A key of the cost model's bibliography; a citation to a missing key does not compile. */
+export type CostingReferenceKey = keyof typeof costingReferences

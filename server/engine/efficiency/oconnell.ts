@@ -18,7 +18,7 @@ export const LB_PER_FT3 = 16.018463373960138
  * @param rhoL liquid density [kg/m3]
  * @returns E_o as a fraction [-]
  * Validity: group K M_L mu_L / rho_L from 0.01 to 10 (chart range as remembered);
- *   bubble-cap data, slightly conservative for sieve trays; Ludwig warns the absorber
+ *   bubble-cap data, slightly conservative for sieve trays; Ludwig (ludwig1997) warns the absorber
  *   chart can predict too high. Properties at the mean column temperature.
  * Source: oconnell1946, fit as given by seaderHenley2011 (from memory).
  * Example: efficiencyOConnell(0.57, 0.01802, 0.000797, 996.03) = 0.504 (group 0.13166: M 18.02 g/mol, 0.797 cP, 62.18 lb/ft3)
@@ -50,3 +50,19 @@ export function actualTrays(N: number, E: number): number {
   const t = Math.ceil(N / E - 1e-9)
   return t < 1 ? 1 : t
 }
+
+/**
+ * Tray efficiency corrected for entrainment (Colburn): the liquid carried up by the gas undoes part
+ * of the tray's separation.
+ * Equation: E_a = E / (1 + E psi / (1 - psi))
+ * @param E tray (or overall) efficiency without entrainment [-]
+ * @param psi fractional entrainment, entrained liquid / gross liquid downflow [mol/mol]
+ * @returns E_a [-]
+ * Validity: 0 <= psi < 1 (psi as data below).
+ * Source: colburn1936, as given by ludwig1997 p. 200; applied to the overall efficiency it is an approximation.
+ * Example: efficiencyWithEntrainment(0.5, 0.05) = 0.48718
+ */
+export function efficiencyWithEntrainment(E: number, psi: number): number {
+  return E / (1 + (E * psi) / (1 - psi))
+}
+export const efficiencyWithEntrainmentValidity: ValidityRange = { arg: 'psi', min: 0, max: 0.999, unit: '-' }

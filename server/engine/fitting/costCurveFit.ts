@@ -74,7 +74,7 @@ const logOf = (base: LogBase) => (v: number) => (base === 'e' ? Math.log(v) : Ma
  * @param logBase      'e' or '10'
  * @returns            cost [currency at the fit's cost index]
  * Validity: S within the quoted sizes; outside it the curve is extrapolated.
- * Source: the cost-curve form of costFromCurve (../costing/correlations.ts).
+ * Source: the cost-curve form of costFromCurve (../costing/correlations.ts; seider2009, turton2009).
  * Example: c = [ln 1000, 0.6], B = e, S = 10 -> 1000 · 10^0.6 = 3981.07.
  */
 export function costFromFit(S: number, coefficients: readonly number[], logBase: LogBase): number {
@@ -98,7 +98,7 @@ export function costFromFit(S: number, coefficients: readonly number[], logBase:
  * @param logBase  'e' or '10': the base of the cost basis curve the result will replace
  * @returns        coefficients, R² in log space, residuals per point, size range
  * Validity: n ≥ 3 points, at least as many distinct sizes as coefficients.
- * Source: ordinary least squares; the log-space fit of cost-capacity data is common practice, no source.
+ * Source: ordinary least squares (press2007 sec. 15.4); the log-space fit of cost-capacity data is common practice, no source.
  * Example: (10, 1000), (100, 3981.07), (1000, 15848.9) with 'power', base e ->
  *          c0 = ln(251.189) = 5.5262, c1 = 0.6, R² = 1.
  */
@@ -187,7 +187,7 @@ export function logSpacedSizes(sMin: number, sMax: number, m = 41): number[] {
  * @param coefficients  c_k in the `from` base
  * @returns             c_k in the `to` base
  * Validity: any polynomial degree.
- * Source: change of logarithm base, ln x = ln 10 · log10 x.
+ * Source: none needed (change of logarithm base, ln x = ln 10 · log10 x).
  * Example: [ln 1000, 0.6] e -> 10: [3, 0.6].
  */
 export function convertLogBase(coefficients: readonly number[], from: LogBase, to: LogBase): number[] {

@@ -66,7 +66,7 @@ export function surfaceTensionFactor(sigma: number): number {
  * Hole-area factor F_HA: 1 for A_h/A_a >= 0.10; 5 (A_h/A_a) + 0.5 for 0.06-0.10.
  * @param AhAa hole area / active area [-]
  * Validity: A_h/A_a >= 0.06 (below: extrapolated with a warning).
- * Source: treybal1980 Table 6.2 notes; agrees with Ludwig's table (0.10 -> 1.00, 0.08 -> 0.90, 0.06 -> 0.80).
+ * Source: treybal1980 Table 6.2 notes; agrees with Ludwig's table (ludwig1997; 0.10 -> 1.00, 0.08 -> 0.90, 0.06 -> 0.80).
  * Example: holeAreaFactor(0.08) = 0.90
  */
 export function holeAreaFactor(AhAa: number, warnings?: EngineWarning[], path?: string): number {

@@ -10,7 +10,7 @@ import type { ValidityRange } from '../numerics/validity.ts'
  * Equation: C_o = 0.85032 - 0.04231 (d_o/l) + 0.0017954 (d_o/l)^2
  * @param dO hole diameter [m]; @param l plate thickness [m]
  * Validity: d_o/l >= 1 (and up to about 12 in the chart).
- * Source: benitez2009 ch. 4 (Illus. 4.7). Example: orificeCoefficient(0.0045, 0.002) = 0.76421 (d_o/l = 2.25)
+ * Source: liebson1957 via benitez2009 ch. 4 (Illus. 4.7). Example: orificeCoefficient(0.0045, 0.002) = 0.76421 (d_o/l = 2.25)
  */
 export function orificeCoefficient(dO: number, l: number): number {
   const r = dO / l
@@ -34,7 +34,7 @@ export function dryTrayHead(vo: number, Co: number, rhoV: number, rhoL: number, 
 /**
  * Relative froth density.
  * Equation: phi_e = exp(-12.55 K_s^0.91), K_s = v_a [rho_V/(rho_L - rho_V)]^0.5 (active area)
- * Source: bennett1983 via benitez2009 ch. 4.
+ * Source: bennett1983 via benitez2009 ch. 4. Example: frothDensity(0.05) = 0.43969
  */
 export function frothDensity(Ks: number): number {
   return Math.exp(-12.55 * Math.pow(Ks, 0.91))
@@ -87,6 +87,7 @@ export const WEEP_FROUDE_LIMIT = 0.5
  * @param hL clear liquid height [m]; @param dO hole diameter [m]; @param phiE froth density [-]
  * @param Ks capacity parameter on active area [m/s]; @param AhAa [-]; @param t spacing [m]
  * Source: benitez2009 eqs 4.45-4.47 (original author not named there).
+ * Example: entrainmentBenitez(0.03, 0.0045, 0.4, 0.08, 0.1, 0.6, 995, 1.8) = 0.02669 kg/kg
  */
 export function entrainmentBenitez(hL: number, dO: number, phiE: number, Ks: number, AhAa: number, t: number, rhoL: number, rhoV: number): number {
   const lnR = Math.log(hL / dO)
@@ -109,7 +110,7 @@ export function weirCrestFrancis(qL: number, Lw: number): number {
 /**
  * Downcomer entrance (apron) head loss.
  * Equation: h_2 = (3/(2g)) (q/A_da)^2, A_da the smaller of apron clearance area and A_d
- * Source: treybal1980 ch. 6 (Illus. 6.3).
+ * Source: treybal1980 ch. 6 (Illus. 6.3). Example: downcomerEntranceLoss(0.005, 0.05) = 0.0015296 m
  */
 export function downcomerEntranceLoss(qL: number, Ada: number): number {
   const v = qL / Ada
@@ -157,7 +158,7 @@ export function dryTrayHeadTreybal(vo: number, dO: number, l: number, AoAn: numb
  * Equation: h_L = 6.10e-3 + 0.725 h_w - 0.238 h_w V_a rho_G^0.5 + 1.225 q/z  [m], z = (D + W)/2
  * @param hw weir height [m]; @param va active-area gas velocity [m/s]; @param rhoV [kg/m3]
  * @param qL liquid flow [m3/s]; @param z average flow width [m]
- * Source: treybal1980 ch. 6 (Illus. 6.3).
+ * Source: treybal1980 ch. 6 (Illus. 6.3). Example: liquidHeadTreybal(0.05, 1.5, 1.8, 0.005, 1) = 0.024527 m
  */
 export function liquidHeadTreybal(hw: number, va: number, rhoV: number, qL: number, z: number): number {
   return 6.1e-3 + 0.725 * hw - 0.238 * hw * va * Math.sqrt(rhoV) + (1.225 * qL) / z
@@ -171,7 +172,8 @@ export function liquidHeadTreybal(hw: number, va: number, rhoV: number, qL: numb
  * @param dO hole diameter [m]; @param l plate thickness [m]; @param Aa active area [m2]
  * @param p hole pitch [m]; @param Z liquid flow distance [m]
  * @returns V_ow [m/s], hole velocity below which the tray weeps
- * Source: treybal1980 eq. 6.46. Example: CO2 1.5e-5, 0.07, 2, 995, 4.5 mm, 2 mm, 1.32 m2, 12 mm, 1.0 m -> about 5.3 m/s
+ * Source: treybal1980 eq. 6.46.
+ * Example: weepVelocityTreybal(1.5e-5, 0.07, 2, 995, 0.0045, 0.002, 1.32, 0.012, 1) = 5.079 m/s (CO2 over water)
  */
 export function weepVelocityTreybal(muV: number, sigma: number, rhoV: number, rhoL: number, dO: number, l: number, Aa: number, p: number, Z: number): number {
   const g1 = Math.pow(((muV * muV) / (sigma * rhoV * dO)) * (rhoL / rhoV), 0.379)

@@ -23,7 +23,7 @@ export interface AntoineSI {
  * @returns vapour pressure [Pa]
  * Validity: the constants' own range (Tmin-Tmax, data in the component library).
  * Source: antoineYaws (constants from memory, each with its source string in data/components.json).
- * Example: ethanol (A 8.20417, B 1642.89, C 230.300) at 298.15 K -> 7.83 kPa
+ * Example: vapourPressureAntoine({ A: 8.20417, B: 1642.89, C: 230.3, Tmin: 270, Tmax: 370 }, 298.15) = 7833 Pa (ethanol, 7.83 kPa)
  */
 export function vapourPressureAntoine(a: AntoineSI, T: number, warnings?: EngineWarning[], path?: string): number {
   if (warnings) {

@@ -115,5 +115,5 @@ export function viscosityWater(T: number, warnings?: EngineWarning[], path?: str
 }
 export const viscosityWaterValidity: ValidityRange = { arg: 'T', min: 273.15, max: 373.15, unit: 'K' }
 
-/** Molar mass of water [kg/mol]. Source: IUPAC standard atomic weights (18.015 g/mol). */
+/** Molar mass of water [kg/mol]. Source: iupac2021 (standard atomic weights: 18.015 g/mol). */
 export const MOLAR_MASS_WATER = 0.018015

@@ -2,7 +2,7 @@
  * The rating case of a designed (approved, built) column: the design case without its
  * targets, the as-built column from the design summary, and the design solvent flow.
  */
-import type { DesignSummary } from '../contract.ts'
+import type { DesignSummary } from '../../../shared/schemas/results.ts'
 
 /** Build the raw rating case (case-file conventions) from a design case and its summary. */
 export function ratingCaseOfDesign(inputs: Record<string, unknown>, s: DesignSummary, weirLength?: number): Record<string, unknown> {

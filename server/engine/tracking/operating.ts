@@ -25,21 +25,23 @@
 import type { DesignSummary } from '../contract.ts'
 import type { CostBreakdown } from '../costing/costDesign.ts'
 
+/** One month of the operating log, in SI (the service converts the logged kmol/h). */
 export interface OperatingEntryInput {
   month: string // YYYY-MM-01
-  gasFlow: number // kmol/h
-  solventFlow: number // kmol/h
+  gasFlow: number // mol/s
+  solventFlow: number // mol/s
   outletMoleFraction?: number | null
   recovery?: number | null
   powerKw?: number | null
 }
 
 export interface TrackingContext {
+  /** The approved design's summary in SI (a stored run's goes through summaryToSI). */
   design: DesignSummary
   /** The approved design priced with the basis in force for the month. */
   designCost: CostBreakdown
   inletMoleFraction: number // y_in of the design case
-  soluteMolarMass: number // kg/kmol
+  soluteMolarMass: number // kg/mol
   operatingHoursPerYear: number
   prices: { electricity: number; solvent: number; product: number; emission: number } // per kWh, per m³, per kg, per kg
 }
@@ -62,6 +64,8 @@ export interface MonthResult {
   percentFloodEstimate: number
   flags: TrackingFlag[]
 }
+
+const SECONDS_PER_HOUR = 3600
 
 export function daysInMonth(month: string): number {
   const [y, m] = month.split('-').map(Number) as [number, number]
@@ -87,16 +91,17 @@ export function priceMonth(e: OperatingEntryInput, ctx: TrackingContext): MonthR
   if (e.recovery !== null && e.recovery !== undefined) recovery = e.recovery
   else if (e.outletMoleFraction !== null && e.outletMoleFraction !== undefined) recovery = recoveryFromOutlet(ctx.inletMoleFraction, e.outletMoleFraction)
 
-  const m3PerKmol = d.solventVolumetricFlow / d.solventFlow
-  const solventM3 = e.solventFlow * m3PerKmol * hours
+  const seconds = hours * SECONDS_PER_HOUR
+  const m3PerMol = d.solventVolumetricFlow / d.solventFlow
+  const solventM3 = e.solventFlow * m3PerMol * seconds
   const c = ctx.designCost
   const designPumpKw = c.power.pumpElectric / 1000
   const designBlowerKw = c.power.blowerElectric / 1000
   const kw = e.powerKw ?? designPumpKw * solventRatio + designBlowerKw * phi
-  const soluteInKgH = e.gasFlow * ctx.inletMoleFraction * ctx.soluteMolarMass
+  const soluteIn = e.gasFlow * ctx.inletMoleFraction * ctx.soluteMolarMass // kg/s
   // Without a measurement the design recovery is assumed, and flagged.
   const r = recovery ?? d.recovery
-  const lostKg = soluteInKgH * (1 - r) * hours
+  const lostKg = soluteIn * (1 - r) * seconds
   const capital = (c.annualisedCapital * days) / 365
 
   const actual = {

@@ -24,7 +24,6 @@ import { trayStateAt, type TrayGeometry, type TrayState } from '../rating/traySt
 import { isEngineError } from '../errors.ts'
 import { eqXofY } from '../balances/stageByStage.ts'
 
-const KMOLH = 3.6
 
 /** The multipliers of one sample (1 = nominal). */
 export interface SampleMultipliers {
@@ -98,7 +97,7 @@ export interface FixedColumn {
 /** Fix the built column of a design (the summary of designSI at nominal values). */
 export function fixColumn(c: CaseSI, design: DesignResult, basis: CostBasisData): FixedColumn {
   const s = design.summary
-  const L0 = s.solventFlow / KMOLH
+  const L0 = s.solventFlow // mol/s: the engine's summary is SI
   const { b } = balanceOf(c, L0)
   const curve = new ScaledCurve(b.eq)
   const column: AsBuiltSI = {

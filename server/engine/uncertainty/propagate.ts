@@ -20,6 +20,7 @@ import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
 import type { CaseSI } from '../case.ts'
 import type { DesignResult } from '../contract.ts'
 import { designSI } from '../design.ts'
+import { fromSI } from '../../../shared/units.ts'
 import { InvalidInputError } from '../errors.ts'
 import { fixColumn, rateSample, scratchOf, type FixedColumn, type SampleMultipliers, type SampleRating } from './column.ts'
 import { latinHypercube, samplerOf } from './distributions.ts'
@@ -212,7 +213,7 @@ export function propagate(input: PropagateInput): UncertaintyResult {
       actualTrays: s.actualTrays,
       selectedDiameter: s.selectedDiameter,
       traySpacing: s.traySpacing,
-      solventFlow: s.solventFlow,
+      solventFlow: fromSI('molarFlow', s.solventFlow), // kmol/h in the answer
       designRecovery: c.recovery,
       nominalRecovery: nominal.recovery,
       nominalPercentFlood: Number.isFinite(nominal.percentFlood) ? nominal.percentFlood : 0,

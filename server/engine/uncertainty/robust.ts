@@ -21,6 +21,7 @@ import { uncertaintySpecSchema } from '../../../shared/schemas/uncertainty.ts'
 import type { CaseSI } from '../case.ts'
 import type { DesignResult } from '../contract.ts'
 import { designSI } from '../design.ts'
+import { fromSI } from '../../../shared/units.ts'
 import { Evaluator, toR, toU, type OptimiseResult } from '../optimisation/evaluator.ts'
 import { recoveryBounds, soluteInKgPerHour } from '../optimisation/driver.ts'
 import { fixColumn } from './column.ts'
@@ -142,7 +143,7 @@ export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpe
     solventFactor: o.solventFactor,
     actualTrays: o.actualTrays,
     selectedDiameter: o.selectedDiameter,
-    solventFlow: ns.solventFlow,
+    solventFlow: fromSI('molarFlow', ns.solventFlow), // kmol/h in the answer
     totalAnnualCost: o.totalAnnualCost,
     expectedTotalAnnualCost: nomFull.expectedTac,
     probabilityMeetsFloor: nomFull.p,
@@ -179,7 +180,7 @@ export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpe
       floodFraction: o.floodFraction,
       actualTrays: ws.actualTrays,
       selectedDiameter: ws.selectedDiameter,
-      solventFlow: ws.solventFlow,
+      solventFlow: fromSI('molarFlow', ws.solventFlow),
       totalAnnualCost: wTac,
       expectedTotalAnnualCost: winner.tacFull,
       probabilityMeetsFloor: winner.pFull,
@@ -187,7 +188,7 @@ export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpe
     },
     margin: {
       extraTrays: ws.actualTrays - o.actualTrays,
-      extraSolventFlow: ws.solventFlow - ns.solventFlow,
+      extraSolventFlow: fromSI('molarFlow', ws.solventFlow - ns.solventFlow),
       extraSolventFraction: ws.solventFlow / ns.solventFlow - 1,
       extraTotalAnnualCost: wTac - o.totalAnnualCost,
       extraExpectedTotalAnnualCost: winner.tacFull - nomFull.expectedTac,

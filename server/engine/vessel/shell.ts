@@ -83,7 +83,9 @@ export interface VesselShell {
  * material data when it asks for them, by the costing.
  * Source: asmeVIII1 UG-27(c)(1); minimum wall sinnott2005; mass commonPractice.
  * Example: P 0.3 MPa, D 1.2 m, L 12 m, S 138 MPa, E 0.85, CA 3 mm, t_min 5 mm (D <= 1 m) / 7 mm
- *   -> thickness 7 mm (minimum governs), mass 2,674 kg at 7850 kg/m3
+ *   -> thickness 7 mm (minimum governs), mass 2,674 kg at 7850 kg/m3:
+ * Example: vesselShell({ designPressure: 3e5, allowableStress: 138e6, jointEfficiency: 0.85, corrosionAllowance: 0.003, materialDensity: 7850, minimumThickness: [{ maxDiameter: 1, thickness: 0.005 }, { maxDiameter: 2, thickness: 0.007 }] }, 1.2, 12).mass = 2674 kg
+ * Example: vesselShell({ designPressure: 3e5, allowableStress: 138e6, jointEfficiency: 0.85, corrosionAllowance: 0.003, materialDensity: 7850, minimumThickness: [{ maxDiameter: 1, thickness: 0.005 }, { maxDiameter: 2, thickness: 0.007 }] }, 1.2, 12).thicknessCalculated = 0.0045369 m
  */
 export function vesselShell(v: VesselData, D: number, L: number): VesselShell {
   const R = 0.5 * D

@@ -1,4 +1,4 @@
-import type { DesignSummary } from '../../engine/contract.ts'
+import type { DesignSummary } from '../../../shared/schemas/results.ts'
 import type { OptionRow } from '../../../shared/schemas/studies.ts'
 import type { ConfidenceSection } from './confidence.ts'
 import type { UnitSystem } from './units.ts'

@@ -1,0 +1,2 @@
+// Lint fixture (never built): a leaf module.
+export const plainLabel = 'Plain'

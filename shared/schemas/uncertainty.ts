@@ -156,6 +156,7 @@ export const uncertaintyResultSchema = z.looseObject({
   totalAnnualCost: spreadSchema,
   currency: z.string(),
   contributions: z.array(contributionSchema),
+  contributionsToCost: z.array(contributionSchema).meta({ description: 'the same rank correlations with the total annualised cost' }),
   histogram: z.looseObject({
     variable: z.literal('recovery'),
     edges: z.array(finite),
@@ -164,6 +165,7 @@ export const uncertaintyResultSchema = z.looseObject({
   }),
   assumptions: z.array(uncertainAssumptionSchema),
   beyondFloodingCorrelation: z.number().int().meta({ description: 'samples whose liquid load lies beyond the flooding correlation (counted as flooding; left out of the percent-flood spread)' }),
+  failedSamples: z.number().int().meta({ description: 'samples that could not be rated (count as missing the target)' }),
   stats: z.looseObject({ ms: finite, msPerSample: finite }),
   warnings: z.array(z.looseObject({ code: z.string(), message: z.string(), path: z.string().optional() })),
   cautions: z.array(z.string()),

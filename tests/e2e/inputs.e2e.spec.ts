@@ -24,7 +24,7 @@ async function look(p: Page, name: string): Promise<void> {
     return
   }
   mkdirSync(shotsDir, { recursive: true })
-  await p.waitForTimeout(400)
+  await expect.poll(() => p.evaluate(() => document.getAnimations().filter((a) => a.playState === 'running' && a.effect?.getTiming().iterations !== Infinity).length), WAIT).toBe(0)
   await p.screenshot({ path: path.join(shotsDir, `${name}.png`), fullPage: true })
 }
 

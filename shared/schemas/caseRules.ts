@@ -37,6 +37,7 @@ export interface CaseFieldRule {
   typical?: [number, number]
   /** What the engine takes when the field is blank: a case-unit number, or words. */
   default?: number | string
+  /** One line: what it is. Words may hold {kind:value} (a case-unit value), shown in the person's units. */
   help: string
   /** Left blank, the field is an error. */
   required?: boolean
@@ -57,7 +58,7 @@ const aboveAbsoluteZero: Limit = { value: -273.15, open: true, words: 'absolute 
 export const CASE_FIELD_RULES: Record<string, CaseFieldRule> = {
   'gas.flow': { label: 'Gas flow into the column', noun: 'the gas flow', shown: q('molarFlow'), min: positive, typical: [10, 5000], required: true, help: 'Total molar flow of the gas entering at the bottom (carrier and solute).' },
   'gas.temperature': { label: 'Gas temperature', noun: 'the gas temperature', shown: q('temperature'), min: aboveAbsoluteZero, typical: [5, 60], required: true, help: 'Temperature of the gas entering the column.' },
-  'gas.pressure': { label: 'Column pressure (absolute)', noun: 'the column pressure', shown: q('pressure'), min: positive, typical: [100, 1000], required: true, help: 'Absolute pressure in the column; atmospheric is about 101 kPa.' },
+  'gas.pressure': { label: 'Column pressure (absolute)', noun: 'the column pressure', shown: q('pressure'), min: positive, typical: [100, 1000], required: true, help: 'Absolute pressure in the column; atmospheric is {pressure:101.325}.' },
   'gas.soluteMoleFraction': { label: 'Solute in the gas', noun: 'the solute in the gas', shown: MOL_PERCENT, min: positive, max: { value: 1, open: true }, typical: [0.001, 0.1], required: true, help: 'Mole fraction of the solute in the entering gas.' },
   'gas.carrierMolarMass': { label: 'Carrier molar mass', noun: 'the carrier molar mass', shown: q('molarMass'), min: positive, typical: [2, 100], help: 'Molar mass of the gas that carries the solute (air is about 29).' },
   'solute.molarMass': { label: 'Solute molar mass', noun: 'the solute molar mass', shown: q('molarMass'), min: positive, typical: [15, 200], help: 'Molar mass of the solute.' },
@@ -82,7 +83,7 @@ export const CASE_FIELD_RULES: Record<string, CaseFieldRule> = {
   'tray.holePitch': { label: 'Hole pitch', noun: 'the hole pitch', shown: q('smallLength'), min: positive, typical: [7.5, 40], default: 12, help: 'Centre-to-centre distance of the holes, 2.5 to 4 hole diameters.' },
   'tray.thickness': { label: 'Tray deck thickness', noun: 'the deck thickness', shown: q('smallLength'), min: positive, typical: [1.5, 4], default: 2, help: 'Thickness of the tray deck plate.' },
   'tray.weirHeight': { label: 'Outlet weir height', noun: 'the weir height', shown: q('smallLength'), min: positive, typical: [25, 75], default: 50, help: 'Height of the outlet weir above the deck.' },
-  'tray.downcomerClearance': { label: 'Downcomer clearance', noun: 'the downcomer clearance', shown: q('smallLength'), min: positive, typical: [25, 50], default: 'the weir height less 10 mm', help: 'Gap under the downcomer apron.' },
+  'tray.downcomerClearance': { label: 'Downcomer clearance', noun: 'the downcomer clearance', shown: q('smallLength'), min: positive, typical: [25, 50], default: 'the weir height less {smallLength:10}', help: 'Gap under the downcomer apron.' },
   'tray.spacing': { label: 'Tray spacing', noun: 'the tray spacing', shown: q('length'), min: positive, typical: [0.3, 0.9], default: 'a rule by diameter', help: 'Distance between trays.' },
   'tray.floodFraction': { label: 'Design approach to flood', noun: 'the approach to flood', shown: PERCENT, min: positive, max: { value: 1, open: true }, typical: [0.6, 0.85], default: 0.8, help: 'Gas velocity as a share of the flooding velocity.' },
   'tray.foamingFactor': { label: 'Foaming (system) factor', noun: 'the foaming factor', shown: PLAIN, min: positive, max: { value: 1.5, open: false }, typical: [0.5, 1], default: 1, help: 'Derates the flooding limit: 1 for non-foaming systems, lower for foaming ones.' },
@@ -91,7 +92,7 @@ export const CASE_FIELD_RULES: Record<string, CaseFieldRule> = {
   'column.diameterStep': { label: 'Diameter step (rounding up)', noun: 'the diameter step', shown: q('length'), min: positive, typical: [0.05, 0.15], default: 0.05, help: 'The diameter is rounded up to a multiple of this step.' },
   'column.topAllowance': { label: 'Space above the top tray', noun: 'the space above the top tray', shown: q('length'), min: nonNegative, typical: [0.5, 1.5], default: 1, help: 'Height for the mist eliminator and gas outlet.' },
   'column.bottomAllowance': { label: 'Space below the bottom tray', noun: 'the space below the bottom tray', shown: q('length'), min: nonNegative, typical: [1.5, 3], default: 3, help: 'Height for the gas inlet and the liquid sump.' },
-  'vessel.designPressure': { label: 'Design pressure (gauge)', noun: 'the design pressure', shown: q('pressureGauge'), min: nonNegative, typical: [170, 1000], default: 'the larger of 1.1 × operating and operating + 170 kPa (gauge)', help: 'Gauge pressure the shell is designed for.' },
+  'vessel.designPressure': { label: 'Design pressure (gauge)', noun: 'the design pressure', shown: q('pressureGauge'), min: nonNegative, typical: [170, 1000], default: 'the larger of 1.1 × operating and operating + {pressureGauge:170} (gauge)', help: 'Gauge pressure the shell is designed for.' },
   'vessel.allowableStress': { label: 'Allowable stress of the shell', noun: 'the allowable stress', shown: q('stress'), min: positive, typical: [100, 140], default: 138, help: 'Allowable stress of the shell material at design temperature.' },
   'vessel.jointEfficiency': { label: 'Weld joint efficiency', noun: 'the joint efficiency', shown: PLAIN, min: positive, max: { value: 1, open: false }, typical: [0.7, 1], default: 0.85, help: 'Weld joint efficiency: 1 fully radiographed, 0.85 spot, 0.7 none.' },
   'vessel.corrosionAllowance': { label: 'Corrosion allowance', noun: 'the corrosion allowance', shown: q('smallLength'), min: nonNegative, typical: [0, 6], default: 3, help: 'Extra wall thickness for corrosion over the life of the vessel.' },
@@ -161,6 +162,18 @@ function limitText(rule: CaseFieldRule, l: Limit, system: ShowSystem | null): st
   return l.words ?? formatCaseValue(rule.shown, l.value, system)
 }
 
+/** Words with {kind:value} tokens, the values shown in the person's units. */
+export function withUnits(text: string, system: ShowSystem | null): string {
+  return text.replace(/\{(\w+):(-?[\d.]+)\}/g, (all, kind: string, v: string) =>
+    kind in QUANTITY_KINDS ? formatCaseValue({ kind: kind as QuantityKind }, Number(v), system, 3) : all,
+  )
+}
+
+/** The help text of a field in the person's units. */
+export function helpText(rule: CaseFieldRule, system: ShowSystem | null): string {
+  return withUnits(rule.help, system)
+}
+
 /** The typical range in the person's units: '3–12 mm', or '' when the rule has none. */
 export function typicalText(rule: CaseFieldRule, system: ShowSystem | null): string {
   if (!rule.typical) return ''
@@ -175,7 +188,7 @@ export function typicalText(rule: CaseFieldRule, system: ShowSystem | null): str
  */
 export function defaultText(rule: CaseFieldRule, system: ShowSystem | null, bare = false): string {
   if (rule.default === undefined) return ''
-  if (typeof rule.default === 'string') return rule.default
+  if (typeof rule.default === 'string') return withUnits(rule.default, system)
   return bare ? trim(caseToShown(rule.shown, rule.default, system)) : formatCaseValue(rule.shown, rule.default, system)
 }
 

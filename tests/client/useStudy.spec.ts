@@ -77,7 +77,7 @@ describe('useStudy', () => {
       if (method === 'POST' && url.endsWith('/runs')) {
         return {
           status: 422,
-          body: { error: { code: 'infeasible_design', message: 'No design meets these inputs.', details: [{ path: 'body.inputs.solventFactor', message: 'must be above 1' }] } },
+          body: { error: { code: 'infeasible_design', message: 'No design meets these inputs.', details: [{ path: 'body.inputs.solventFactor', message: 'too close to the minimum for the trays' }] } },
         }
       }
       return { status: 200, body: studyBody() }
@@ -85,13 +85,39 @@ describe('useStudy', () => {
     const ws = useStudy(() => 1, () => 7)
     await ws.load()
     await flushPromises()
-    if (ws.draft.value) ws.draft.value.solventFactor = 0.8
+    if (ws.draft.value) ws.draft.value.solventFactor = 1.01
     await flushPromises()
     expect(await ws.run('design')).toBe(false)
     const order = calls.filter((c) => c.method !== 'GET').map((c) => c.method)
     expect(order).toEqual(['PUT', 'POST'])
-    expect(ws.errors.value.solventFactor).toEqual(['must be above 1'])
+    expect(ws.errors.value.solventFactor).toEqual(['too close to the minimum for the trays'])
+    expect(ws.problems.value.map((p) => p.label)).toEqual(['Solvent factor L / Lmin'])
     expect(ws.running.value).toBeNull()
+    // an edit clears what the server said about the old inputs
+    if (ws.draft.value) ws.draft.value.solventFactor = 1.4
+    await flushPromises()
+    expect(ws.errors.value).toEqual({})
+  })
+
+  it('lists every problem at once as the person types; nothing is sent while any is left', async () => {
+    const calls = fakeFetch((_m, url) => (url.includes('/components') ? { status: 200, body: [] } : { status: 200, body: studyBody() }))
+    const ws = useStudy(() => 1, () => 7)
+    await ws.load()
+    await flushPromises()
+    const d = ws.draft.value!
+    ;(d.gas as Record<string, unknown>).flow = -300
+    d.recovery = 1.2
+    d.solventFactor = 0.8
+    delete (d.gas as Record<string, unknown>).soluteMoleFraction
+    await flushPromises()
+    expect(ws.errors.value['gas.flow']).toEqual(['-300 kmol/h: the gas flow must be positive'])
+    expect(ws.errors.value.recovery).toEqual(['120 %: recovery must be below 100 %'])
+    expect(ws.errors.value.solventFactor).toEqual(['0.8: L/Lmin must be above 1'])
+    expect(ws.errors.value['gas.soluteMoleFraction']).toEqual(['required: enter the solute in the gas'])
+    expect(ws.blockedReason.value).toMatch(/^4 inputs need attention/)
+    expect(await ws.save()).toBe(false)
+    expect(await ws.run('design')).toBe(false)
+    expect(calls.some((c) => c.method !== 'GET')).toBe(false)
   })
 
   it('checks the case with the shared schema before saving', async () => {

@@ -24,7 +24,7 @@ async function look(p: Page, name: string): Promise<void> {
     return
   }
   mkdirSync(shotsDir, { recursive: true })
-  await p.waitForTimeout(400)
+  await expect.poll(() => p.evaluate(() => document.getAnimations().filter((a) => a.playState === 'running' && a.effect?.getTiming().iterations !== Infinity).length), WAIT).toBe(0)
   await p.screenshot({ path: path.join(shotsDir, `${name}.png`), fullPage: true })
 }
 
@@ -109,6 +109,14 @@ describe('study inputs: nothing nonsensical is saved or run', () => {
     await input(p, 'gas-flow').fill('12a')
     await p.getByTestId('input-problems').getByText('not a number: enter the gas flow').waitFor()
     await expect.poll(() => p.getByTestId('run-design').isDisabled(), WAIT).toBe(true)
+    // another section and back: the edits and their problems are still there (the study is not reloaded)
+    await p.getByTestId('tab-column').click()
+    await p.waitForURL(/\/column$/)
+    await p.getByRole('tab', { name: /Streams/ }).click()
+    await p.waitForURL(/\/streams$/)
+    await p.getByTestId('input-problems').getByText('required: enter the solute in the gas').waitFor()
+    await p.getByTestId('input-problems').getByText('not a number: enter the gas flow').waitFor()
+    await expect.poll(() => input(p, 'gas-solute').inputValue(), WAIT).toBe('')
     // with a new value in place, the run uses exactly what is on the screen
     await input(p, 'gas-flow').fill('200')
     await input(p, 'gas-solute').fill('1.5')
@@ -151,6 +159,7 @@ describe('study inputs: nothing nonsensical is saved or run', () => {
     await input(p, 'solvent-temperature').waitFor()
     await expect(input(p, 'solvent-temperature').getAttribute('placeholder')).resolves.toBe('default: the gas temperature')
     await input(p, 'solvent-temperature').fill('20')
+    await p.getByText('Unsaved changes').waitFor()
     await p.getByTestId('run-design').click()
     await p.waitForURL(/\/column$/)
     await p.getByTestId('column-staging').waitFor()

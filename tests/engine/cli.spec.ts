@@ -61,10 +61,18 @@ describe('design command line (in process)', () => {
   })
   it('an infeasible design: exit code 2 with the reason', () => {
     const f = join(dir, 'infeasible.json')
-    writeFileSync(f, JSON.stringify({ gas: { flow: 100, temperature: 30, pressure: 100, soluteMoleFraction: 0.01, carrier: 'air' }, solute: 'ethanol', solvent: 'water', equilibrium: { model: 'constantK', K: 1 }, recovery: 0.9, solventFactor: 0.8 }))
+    // lean solvent already richer than the gas leaving at the target: valid input, no design
+    const c = { gas: { flow: 100, temperature: 30, pressure: 100, soluteMoleFraction: 0.01, carrier: 'air' }, solute: 'ethanol', solvent: { name: 'water', soluteMoleFraction: 0.05 }, equilibrium: { model: 'constantK', K: 1 }, recovery: 0.9, solventFactor: 1.5 }
+    writeFileSync(f, JSON.stringify(c))
     const r = runInProcess(f)
     expect(r.status).toBe(2)
-    expect(r.stderr).toContain('belowMinimumSolvent')
+    expect(r.stderr).toContain('leanSolventLoaded')
+    // L/Lmin at or below 1 is refused as input, in the case's words
+    const g = join(dir, 'below-minimum.json')
+    writeFileSync(g, JSON.stringify({ ...c, solvent: 'water', solventFactor: 0.8 }))
+    const b = runInProcess(g)
+    expect(b.status).toBe(2)
+    expect(b.stderr).toContain('0.8: L/Lmin must be above 1')
   })
   it('a cost basis beside the case adds totalAnnualCost and costBreakdown to each summary', () => {
     const one = JSON.parse(readFileSync('data/examples/design.json', 'utf8')) as Record<string, unknown>

@@ -3,7 +3,7 @@
  * the person's units, and every rule with a typical range keeps its default inside its limits.
  */
 import { describe, expect, it } from 'vitest'
-import { CASE_FIELD_RULES, defaultText, ruleFor, ruleProblem, typicalText } from '../../shared/schemas/caseRules.ts'
+import { CASE_FIELD_RULES, defaultText, helpText, ruleFor, ruleProblem, typicalText } from '../../shared/schemas/caseRules.ts'
 import { caseSchema } from '../../shared/schemas/case.ts'
 import { CASE_DEFAULTS } from '../../server/engine/case.ts'
 import { toSI } from '../../shared/units.ts'
@@ -73,5 +73,15 @@ describe('case field rules', () => {
     const r = caseSchema.safeParse({ ...inputs, gas: { ...inputs.gas, flow: -300 }, recovery: 1.2, solventFactor: 0.8 })
     expect(r.success).toBe(false)
     expect(r.error!.issues.map((i) => i.path.join('.')).sort()).toEqual(['gas.flow', 'recovery', 'solventFactor'])
+  })
+})
+
+describe('help and default words in the person\'s units', () => {
+  it('puts the values of the words into the unit system', () => {
+    // 101.325 kPa = 14.70 psi (1 psi = 6.894757 kPa, NIST SP 811 B.8)
+    expect(helpText(ruleFor('gas.pressure')!, 'US')).toBe('Absolute pressure in the column; atmospheric is 14.7 psi.')
+    expect(helpText(ruleFor('gas.pressure')!, 'SI')).toBe('Absolute pressure in the column; atmospheric is 101 kPa.')
+    // 10 mm = 0.394 in (25.4 mm = 1 in exactly)
+    expect(defaultText(ruleFor('tray.downcomerClearance')!, 'US')).toBe('the weir height less 0.394 in')
   })
 })

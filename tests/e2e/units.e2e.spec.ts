@@ -69,25 +69,33 @@ async function studyWithRun(r: APIRequestContext, siteId: number, name: string, 
 }
 
 /** Wait until the locator's text satisfies the test (re-read until then). */
-async function textMatches(l: Locator, test: (t: string) => boolean, what: string): Promise<string> {
+async function textMatches(l: Locator, test: (t: string) => boolean, what: string, timeout = 20000): Promise<string> {
   let last = ''
-  await expect
-    .poll(async () => {
-      last = (await l.innerText().catch(() => '')).trim()
-      return test(last)
-    }, { timeout: 20000, message: `${what}: last text "${last}"` })
-    .toBe(true)
+  try {
+    await expect.poll(async () => test((last = (await l.innerText().catch(() => '')).trim())), { timeout }).toBe(true)
+  } catch {
+    throw new Error(`${what}: the text did not match in time; last text "${last}"`)
+  }
   return last
 }
 async function inputMatches(l: Locator, test: (t: string) => boolean, what: string): Promise<string> {
   let last = ''
-  await expect
-    .poll(async () => {
-      last = await l.inputValue().catch(() => '')
-      return test(last)
-    }, { timeout: 20000, message: `${what}: last value "${last}"` })
-    .toBe(true)
+  try {
+    await expect.poll(async () => test((last = await l.inputValue().catch(() => ''))), { timeout: 20000 }).toBe(true)
+  } catch {
+    throw new Error(`${what}: the value did not match in time; last value "${last}"`)
+  }
   return last
+}
+
+/** Every numeric axis label of the page's charts: separators, at most 4 decimals (SVG text: textContent). */
+async function axisLabelsReadWell(p: Page): Promise<void> {
+  const labels = p.locator('.apexcharts-xaxis-label, .apexcharts-yaxis-label')
+  const labelTexts = async () => (await labels.evaluateAll((els) => els.map((e) => e.textContent ?? ''))).map((t) => t.trim())
+  await expect.poll(async () => (await labelTexts()).filter((t) => /\d/.test(t)).length, { timeout: 20000 }).toBeGreaterThan(10)
+  const texts = (await labelTexts()).filter((t) => /^[-−\d]/.test(t))
+  for (const t of texts) expect(t, `axis label "${t}"`).toMatch(/^[-−]?\d{1,3}(,\d{3})*(\.\d{1,4})?$/)
+  expect(texts.some((t) => /\d,\d{3}/.test(t)), 'a label of 1,000 or more with its separator').toBe(true)
 }
 
 const num = (t: string) => Number(t.replace(/[\s,\u00a0\u202f]/g, ''))
@@ -157,13 +165,7 @@ describe('economics in the person’s units', () => {
     // chart axes: numbers with separators and a few digits, never 300000.000000000000
     const charts = p.locator('.apexcharts-svg')
     await expect.poll(() => charts.count(), { timeout: 30000 }).toBeGreaterThanOrEqual(3)
-    // (SVG text: read its textContent)
-    const labels = p.locator('.apexcharts-xaxis-label, .apexcharts-yaxis-label')
-    const labelTexts = async () => (await labels.evaluateAll((els) => els.map((e) => e.textContent ?? ''))).map((t) => t.trim())
-    await expect.poll(async () => (await labelTexts()).filter((t) => /\d/.test(t)).length, { timeout: 20000 }).toBeGreaterThan(10)
-    const texts = (await labelTexts()).filter((t) => /^[-−\d]/.test(t))
-    for (const t of texts) expect(t, `axis label "${t}"`).toMatch(/^[-−]?\d{1,3}(,\d{3})*(\.\d{1,4})?$/)
-    expect(texts.some((t) => /\d,\d{3}/.test(t)), 'a label of 1,000 or more with its separator').toBe(true)
+    await axisLabelsReadWell(p)
     await shot(p, 'units-economics-si')
 
     // US customary: spacings in whole inches, sizes in lb and hp
@@ -177,13 +179,15 @@ describe('economics in the person’s units', () => {
     await textMatches(p.getByTestId('optimum-summary'), (t) => /\bft\b/.test(t) && /\bin\b/.test(t), 'diameter in ft and spacing in in')
     // optimising in US units uses the spacings shown: the optimum's spacing is a whole-inch one
     await p.getByTestId('optimise').click()
-    await textMatches(p.getByTestId('optimum-summary'), (t) => /Tray spacing\s*(18|20|24|30|36) in\b/.test(t), 'optimum on a whole-inch spacing')
+    await textMatches(p.getByTestId('optimum-summary'), (t) => /Tray spacing\s*(18|20|24|30|36) in\b/.test(t), 'optimum on a whole-inch spacing', 120000)
     await inputMatches(spacings.locator('input'), (v) => v === '18, 20, 24, 30, 36', 'US spacings kept')
+    // the charts were drawn again with the new optimum: their labels still read well
+    await axisLabelsReadWell(p)
     await shot(p, 'units-economics-us')
     await p.setViewportSize({ width: 390, height: 844 })
     await shot(p, 'units-economics-us-390')
     expect(s.problems).toEqual([])
-  }, 180000)
+  }, 300000)
 })
 
 describe('compare', () => {

@@ -48,7 +48,9 @@ function dataSheetPage(doc: Doc, m: ReportModel): void {
   ), { width })
   heading(doc, 'Data sheet', 100)
   if (!m.dataSheet.length) {
-    note(doc, 'No design or optimisation has been run for this study yet: the report shows the inputs, options and sign-off history only.')
+    note(doc, m.design
+      ? 'The inputs of the design run no longer form a complete case, so the data sheet cannot be drawn up; the sections that follow show the run as stored.'
+      : 'No design or optimisation has been run for this study yet: the report shows the inputs, options and sign-off history only.')
   } else {
     const top = doc.y
     const colW = (width - 24) / 2
@@ -66,10 +68,13 @@ function dataSheetPage(doc: Doc, m: ReportModel): void {
   const text = m.cautions.map((c) => `- ${c}`).join('\n')
   doc.font('Helvetica').fontSize(7.5)
   const h = doc.heightOfString(pdfText(text), { width: width - 16 }) + 24
-  const y = Math.max(doc.y + 6, bottom(doc) - h)
+  // at the foot of a full data sheet; right below the note when there is none (the sections follow on the same page)
+  const y = m.dataSheet.length ? Math.max(doc.y + 6, bottom(doc) - h) : doc.y + 8
   doc.rect(MARGIN, y, width, h).lineWidth(0.6).strokeColor(STATUS_INK.warn!).stroke()
   doc.font('Helvetica-Bold').fontSize(8.5).fillColor(STATUS_INK.warn!).text('Cautions', MARGIN + 8, y + 6)
   doc.font('Helvetica').fontSize(7.5).fillColor(INK).text(pdfText(text), MARGIN + 8, y + 18, { width: width - 16 })
+  doc.y = y + h
+  doc.x = MARGIN
 }
 
 const details: Section = {
@@ -240,7 +245,7 @@ const operating: Section = {
       ],
       op.months.map((x) => [
         x.month, fmt(x.gasFlow, 4), fmt(x.solventFlow, 4), c(x.solventNeeded), fmt(x.expectedRecovery, 4), c(x.measuredRecovery),
-        `${c(x.achievedEfficiency) || '-'} / ${fmt(x.designEfficiency, 3)}`, x.insideWindow ? 'inside' : `outside: ${x.outside.join(', ')}`,
+        `${c(x.achievedEfficiency) || 'n/a'} / ${fmt(x.designEfficiency, 3)}`, x.insideWindow ? 'inside' : `outside: ${x.outside.join(', ')}`,
       ]))
     note(doc, 'Achieved efficiency: back-calculated from the measured recovery at the month\'s flows. Solvent needed: the solvent at which the as-built column at design efficiency reaches the design recovery with the month\'s gas.')
   },
@@ -306,7 +311,8 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
   const width = contentWidth(doc)
 
   dataSheetPage(doc, m)
-  doc.addPage()
+  if (m.dataSheet.length) doc.addPage()
+  else doc.y += 4
   for (const s of sectionsOf(m)) s.render(doc, m)
 
   // ---- page footers

@@ -124,7 +124,7 @@ const design: Section = {
 const diagram: Section = {
   key: 'diagram',
   render(doc, m) {
-    if (!m.profile) return
+    if (!m.profile || !m.profile.operating.length) return
     heading(doc, 'Operating diagram', 300)
     note(doc, `Equilibrium curve, operating line and theoretical stages, top of the column at the lower left. ${m.profile.methodNote}`)
     doc.moveDown(0.4)
@@ -219,11 +219,13 @@ const operating: Section = {
     if (!op.months.length) return
     note(doc, `Each logged month rated with the as-built column (approved design run #${op.designRunId}) and priced with the cost basis in force that month; the gap to the approved optimum's month cost (cost basis version ${op.costBasisVersion ?? 'none'}) is split into its causes, which add up to the gap.`)
     if (op.drift) note(doc, `Drift: ${op.drift}`)
-    doc.moveDown(0.3)
-    const y = doc.y
-    costGapFigure(doc, op.months, m.currency, MARGIN, y, contentWidth(doc), 220)
-    doc.y = y + 226
-    doc.x = MARGIN
+    if (op.months.some((x) => x.gap !== null)) {
+      doc.moveDown(0.3)
+      const y = doc.y
+      costGapFigure(doc, op.months, m.currency, MARGIN, y, contentWidth(doc), 220)
+      doc.y = y + 226
+      doc.x = MARGIN
+    }
     const c = (v: number | null) => (v === null ? '' : fmt(v, 4))
     const cur = m.currency
     table(doc,
@@ -235,6 +237,8 @@ const operating: Section = {
         ...op.months.map((x) => [x.month, c(x.reference), fmt(x.actual, 4), c(x.gap), ...GAP_PARTS.map((p) => c(x[p.key]))]),
         ['To date', fmt(op.toDate.reference, 4), fmt(op.toDate.actual, 4), fmt(op.toDate.gap, 4), ...GAP_PARTS.map((p) => fmt(op.months.reduce((a, x) => a + (x[p.key] ?? 0), 0), 4))],
       ])
+    // the rating of the months (absent when it could not be made: the issue is noted above)
+    if (!op.months.some((x) => x.designEfficiency > 0)) return
     doc.moveDown(0.6)
     table(doc,
       [

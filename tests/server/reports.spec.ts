@@ -88,7 +88,7 @@ let studyId = 0
 let design: { id: number; result: { totalAnnualCost: number; costBreakdown: { currency: string; totalAnnualCost: number }; summary: Record<string, number>; checks: { key: string; value: number; status: string }[]; cautions: string[] } }
 let trackedId = 0
 let tracked: { id: number; result: { summary: Record<string, number> } }
-let optimum: { id: number; result: { optimum: { totalAnnualCost: number }; curves: { recovery: { feasible: boolean }[]; solventFactor: { feasible: boolean }[] } } }
+let optimum: { id: number; result: { optimum: { totalAnnualCost: number; design: { summary: { actualTrays: number } } }; curves: { recovery: { feasible: boolean }[]; solventFactor: { feasible: boolean }[] } } }
 
 beforeAll(async () => {
   cobalt = (await siteIds()).cobalt
@@ -310,6 +310,23 @@ describe('study report (PDF): what a practitioner reads', () => {
       // common practice, no source: a page with fewer than 8 lines besides its footer reads as a stray page
       for (const p of pages) expect(p.lines - 1, p.text.slice(0, 80)).toBeGreaterThanOrEqual(8)
     }
+  })
+
+  it('describes the recommended option once the study is submitted, not merely the newest run', async () => {
+    const eng = await auth('engineer')
+    const st = await api().post(`/api/v1/sites/${cobalt}/studies`).set(eng).send({ name: 'Report check: recommended optimum', inputs: ethanolCase })
+    const id = st.body.id as number
+    const optRun = (await api().post(`/api/v1/sites/${cobalt}/studies/${id}/runs`).set(eng).send({ kind: 'optimize' })).body as { id: number }
+    const d = (await api().post(`/api/v1/sites/${cobalt}/studies/${id}/runs`).set(eng).send({ kind: 'design' })).body
+    const opt = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/options`).set(eng).send({ runId: optRun.id, name: 'Cheapest' })
+    const sub = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/submit`).set(eng).send({ recommendedOptionId: opt.body.id })
+    expect(sub.status).toBe(200)
+    const optimumTrays = optimum.result.optimum.design.summary.actualTrays
+    // the same case optimised twice gives the same optimum; the design run at the case's own targets has more trays
+    expect(d.result.summary.actualTrays).not.toBe(optimumTrays)
+    const pages = await pdfPages(await reportOf(id))
+    expect(pages[0]!.text).toContain(`Sieve trays ${optimumTrays}`)
+    expect(pages.map((p) => p.text).join(' ')).toContain(`From the recommended option "Cheapest" (the optimum of optimisation run #${optRun.id})`)
   })
 
   it('carries the cost-basis version and the sign-off history', async () => {

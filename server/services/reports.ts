@@ -1,6 +1,6 @@
 import { Run, ReviewEvent, Site } from '../db/models/index.ts'
 import { AppError } from '../errors.ts'
-import { findStudy, listOptions } from './studies.ts'
+import { findStudy, listOptions, recommendedRun } from './studies.ts'
 import { userNames } from './people.ts'
 import { basisInForce } from './cost-bases.ts'
 import { siteLibrary } from './runs.ts'
@@ -153,29 +153,38 @@ export async function buildReport(siteId: number, studyId: number, reader: { nam
     Run.findOne({ where: { studyId, kind: 'optimize' }, order: [['id', 'DESC']] }),
   ])
   const events = await ReviewEvent.findAll({ where: { studyId }, order: [['id', 'ASC']] })
-  const who = await userNames([designRun?.createdBy ?? null, optRun?.createdBy ?? null, ...events.map((e) => e.userId)])
+  const recommended = await recommendedRun(s)
+  const who = await userNames([designRun?.createdBy ?? null, optRun?.createdBy ?? null, recommended?.createdBy ?? null, ...events.map((e) => e.userId)])
   const opt = optRun ? (optRun.result as OptimiseResult) : null
   const library = await siteLibrary(siteId)
+  const options = await listOptions(studyId)
 
   let design: ReportModel['design'] = null
   let designResult: DesignResult | null = null
   let designInputs: unknown = s.inputs
   let breakdown: CostBreakdown | null = null
   let cautions: string[] = []
-  if (designRun) {
-    const r = designRun.result as PricedDesign
+  // The design the report describes: the recommended option's once there is one (what was submitted
+  // or approved), else the newest design run, else the optimum of the newest optimisation.
+  const source = recommended ?? designRun ?? optRun
+  if (source?.kind === 'design') {
+    const r = source.result as PricedDesign
     designResult = r
-    designInputs = designRun.inputs
-    design = { run: meta(designRun, who), source: `design run #${designRun.id}`, groups: summaryGroups(r, u), raw: r.summary, checks: checkRows(r.checks, u), warnings: r.warnings.map((w) => w.message) }
     breakdown = r.costBreakdown ?? null
-    cautions = r.cautions
-  } else if (optRun && opt) {
-    const d = opt.optimum.design
-    designResult = d
-    designInputs = optRun.inputs
-    design = { run: meta(optRun, who), source: `the optimum of optimisation run #${optRun.id}`, groups: summaryGroups(d, u), raw: d.summary, checks: checkRows(d.checks, u), warnings: d.warnings.map((w) => w.message) }
-    breakdown = opt.optimum.breakdown
-    cautions = d.cautions
+  } else if (source?.kind === 'optimize') {
+    const o = source.result as OptimiseResult
+    designResult = o.optimum.design
+    breakdown = o.optimum.breakdown
+  }
+  if (source && designResult) {
+    designInputs = source.inputs
+    const what = source.kind === 'design' ? `design run #${source.id}` : `the optimum of optimisation run #${source.id}`
+    const recommendedName = recommended ? options.find((o) => o.id === s.recommendedOptionId)?.name : undefined
+    design = {
+      run: meta(source, who), source: recommendedName ? `the recommended option "${recommendedName}" (${what})` : what,
+      groups: summaryGroups(designResult, u), raw: designResult.summary, checks: checkRows(designResult.checks, u), warnings: designResult.warnings.map((w) => w.message),
+    }
+    cautions = designResult.cautions
   }
   if (opt) cautions = [...cautions, ...opt.cautions]
 
@@ -183,7 +192,6 @@ export async function buildReport(siteId: number, studyId: number, reader: { nam
   const designCase = designResult ? caseOf(designInputs, library) : null
   if (studyCase) cautions = [...cautions, ...studyCase.cautions]
 
-  const options = await listOptions(studyId)
   const optionRows = options.map((o) => ({
     ...o,
     tac: o.summary?.totalAnnualCost ?? null,
@@ -191,8 +199,8 @@ export async function buildReport(siteId: number, studyId: number, reader: { nam
   }))
 
   const currentInputs = JSON.stringify(s.inputs)
-  const inputsNote = designRun && JSON.stringify(designRun.inputs) !== currentInputs
-    ? `The study's inputs changed after design run #${designRun.id}; the design below is for the inputs of that run.`
+  const inputsNote = source && JSON.stringify(source.inputs) !== currentInputs
+    ? `The study's inputs changed after run #${source.id}; the design below is for the inputs of that run.`
     : studyCase ? null : "The study's inputs do not yet form a complete case; the form shows what is missing."
 
   const currency = breakdown?.currency ?? opt?.optimum.breakdown.currency ?? ''

@@ -9,6 +9,7 @@ import { ReviewEvent, User } from '../../server/db/models/index.ts'
 import { PEOPLE } from './helpers.ts'
 import { VESSEL_CAUTION } from '../../server/engine/vessel/shell.ts'
 import { fmt } from '../../server/services/reports/format.ts'
+import type { ReportModel } from '../../server/services/reports/model.ts'
 
 const demo = JSON.parse(readFileSync('data/demo-studies.json', 'utf8')) as { studies: { inputs: Record<string, unknown> }[] }
 const ethanolCase = demo.studies[0]!.inputs
@@ -87,7 +88,7 @@ let studyId = 0
 let design: { id: number; result: { totalAnnualCost: number; costBreakdown: { currency: string; totalAnnualCost: number }; summary: Record<string, number>; checks: { key: string; value: number; status: string }[]; cautions: string[] } }
 let trackedId = 0
 let tracked: { id: number; result: { summary: Record<string, number> } }
-let optimum: { id: number; result: { optimum: { totalAnnualCost: number }; curves: { recovery: { feasible: boolean }[]; solventFactor: { feasible: boolean }[] } } }
+let optimum: { id: number; result: { optimum: { totalAnnualCost: number; design: { summary: { actualTrays: number } } }; curves: { recovery: { feasible: boolean }[]; solventFactor: { feasible: boolean }[] } } }
 
 beforeAll(async () => {
   cobalt = (await siteIds()).cobalt
@@ -311,6 +312,23 @@ describe('study report (PDF): what a practitioner reads', () => {
     }
   })
 
+  it('describes the recommended option once the study is submitted, not merely the newest run', async () => {
+    const eng = await auth('engineer')
+    const st = await api().post(`/api/v1/sites/${cobalt}/studies`).set(eng).send({ name: 'Report check: recommended optimum', inputs: ethanolCase })
+    const id = st.body.id as number
+    const optRun = (await api().post(`/api/v1/sites/${cobalt}/studies/${id}/runs`).set(eng).send({ kind: 'optimize' })).body as { id: number }
+    const d = (await api().post(`/api/v1/sites/${cobalt}/studies/${id}/runs`).set(eng).send({ kind: 'design' })).body
+    const opt = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/options`).set(eng).send({ runId: optRun.id, name: 'Cheapest' })
+    const sub = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/submit`).set(eng).send({ recommendedOptionId: opt.body.id })
+    expect(sub.status).toBe(200)
+    const optimumTrays = optimum.result.optimum.design.summary.actualTrays
+    // the same case optimised twice gives the same optimum; the design run at the case's own targets has more trays
+    expect(d.result.summary.actualTrays).not.toBe(optimumTrays)
+    const pages = await pdfPages(await reportOf(id))
+    expect(pages[0]!.text).toContain(`Sieve trays ${optimumTrays}`)
+    expect(pages.map((p) => p.text).join(' ')).toContain(`From the recommended option "Cheapest" (the optimum of optimisation run #${optRun.id})`)
+  })
+
   it('carries the cost-basis version and the sign-off history', async () => {
     const text = await pdfText(await reportOf(trackedId))
     expect(text).toMatch(/cost basis version 1 \(design run #\d+\)/)
@@ -386,5 +404,32 @@ describe('study export (XLSX): one sheet per part, full precision', () => {
     expect(gas.getCell(3).value as number).toBeCloseTo(420 / 0.45359237, 9)
     expect(gas.getCell(4).value).toBe('lbmol/h')
     await api().patch('/api/v1/auth/me').set(await auth('economist')).send({ unitSystem: 'SI' })
+  })
+})
+
+describe("a feature's own report section", () => {
+  it('prints after the operating log in the PDF and gets a sheet of its own in the workbook', async () => {
+    const { renderPdf } = await import('../../server/services/reports/pdf.ts')
+    const { renderXlsx } = await import('../../server/services/reports/xlsx.ts')
+    const model: ReportModel = {
+      generatedAt: new Date('2026-12-01T10:00:00Z'), generatedBy: 'Test reader', unitSystem: 'SI', costBasisInForce: null,
+      site: { id: 1, name: 'Test site' },
+      study: { id: 1, name: 'Section check', description: '', status: 'draft', revision: 1, ownerName: 'Owner', updatedAt: new Date('2026-12-01T10:00:00Z') },
+      dataSheet: [], inputs: [], inputsNote: null, design: null, profile: null, costs: null, optimise: null, curves: [], currency: 'USD',
+      options: [], recommendedOptionId: null, operating: null, review: [], cautions: [VESSEL_CAUTION],
+      sections: [{ key: 'confidence', title: 'Confidence of the result', notes: ['Spread from the stated input ranges.'], columns: [{ title: 'Quantity' }, { title: 'Low', unit: '%' }, { title: 'High', unit: '%' }], rows: [['Recovery', 97.1234, 98.9876]] }],
+    }
+    const text = (await pdfPages(await renderPdf(model))).map((p) => p.text).join(' ')
+    expect(text).toContain('Confidence of the result')
+    expect(text).toContain('Spread from the stated input ranges.')
+    expect(text).toContain('Recovery 97.12 98.99')
+    expect(text.indexOf('Confidence of the result')).toBeLessThan(text.indexOf('Sign-off history'))
+    const wb = new ExcelJS.Workbook()
+    const buf = await renderXlsx(model)
+    await wb.xlsx.load(buf.buffer.slice(buf.byteOffset, buf.byteOffset + buf.byteLength) as ArrayBuffer)
+    const ws = wb.getWorksheet('Confidence of the result')!
+    expect(cells(ws.getRow(1))).toEqual(['Quantity', 'Low [%]', 'High [%]'])
+    expect(ws.getRow(2).getCell(2).value).toBe(97.1234)
+    expect(ws.getRow(2).getCell(2).numFmt).toBe('#,##0.00')
   })
 })

@@ -49,7 +49,9 @@ function dataSheetPage(doc: Doc, m: ReportModel): void {
   ), { width })
   heading(doc, 'Data sheet', 100)
   if (!m.dataSheet.length) {
-    note(doc, 'No design or optimisation has been run for this study yet: the report shows the inputs, options and sign-off history only.')
+    note(doc, m.design
+      ? 'The inputs of the design run no longer form a complete case, so the data sheet cannot be drawn up; the sections that follow show the run as stored.'
+      : 'No design or optimisation has been run for this study yet: the report shows the inputs, options and sign-off history only.')
   } else {
     const top = doc.y
     const colW = (width - 24) / 2
@@ -67,10 +69,13 @@ function dataSheetPage(doc: Doc, m: ReportModel): void {
   const text = m.cautions.map((c) => `- ${c}`).join('\n')
   doc.font('Helvetica').fontSize(7.5)
   const h = doc.heightOfString(pdfText(text), { width: width - 16 }) + 24
-  const y = Math.max(doc.y + 6, bottom(doc) - h)
+  // at the foot of a full data sheet; right below the note when there is none (the sections follow on the same page)
+  const y = m.dataSheet.length ? Math.max(doc.y + 6, bottom(doc) - h) : doc.y + 8
   doc.rect(MARGIN, y, width, h).lineWidth(0.6).strokeColor(STATUS_INK.warn!).stroke()
   doc.font('Helvetica-Bold').fontSize(8.5).fillColor(STATUS_INK.warn!).text('Cautions', MARGIN + 8, y + 6)
   doc.font('Helvetica').fontSize(7.5).fillColor(INK).text(pdfText(text), MARGIN + 8, y + 18, { width: width - 16 })
+  doc.y = y + h
+  doc.x = MARGIN
 }
 
 const details: Section = {
@@ -120,7 +125,7 @@ const design: Section = {
 const diagram: Section = {
   key: 'diagram',
   render(doc, m) {
-    if (!m.profile) return
+    if (!m.profile || !m.profile.operating.length) return
     heading(doc, 'Operating diagram', 300)
     note(doc, `Equilibrium curve, operating line and theoretical stages, top of the column at the lower left. ${m.profile.methodNote}`)
     doc.moveDown(0.4)
@@ -215,11 +220,13 @@ const operating: Section = {
     if (!op.months.length) return
     note(doc, `Each logged month rated with the as-built column (approved design run #${op.designRunId}) and priced with the cost basis in force that month; the gap to the approved optimum's month cost (cost basis version ${op.costBasisVersion ?? 'none'}) is split into its causes, which add up to the gap.`)
     if (op.drift) note(doc, `Drift: ${op.drift}`)
-    doc.moveDown(0.3)
-    const y = doc.y
-    costGapFigure(doc, op.months, m.currency, MARGIN, y, contentWidth(doc), 220)
-    doc.y = y + 226
-    doc.x = MARGIN
+    if (op.months.some((x) => x.gap !== null)) {
+      doc.moveDown(0.3)
+      const y = doc.y
+      costGapFigure(doc, op.months, m.currency, MARGIN, y, contentWidth(doc), 220)
+      doc.y = y + 226
+      doc.x = MARGIN
+    }
     const c = (v: number | null) => (v === null ? '' : fmt(v, 4))
     const cur = m.currency
     table(doc,
@@ -231,6 +238,8 @@ const operating: Section = {
         ...op.months.map((x) => [x.month, c(x.reference), fmt(x.actual, 4), c(x.gap), ...GAP_PARTS.map((p) => c(x[p.key]))]),
         ['To date', fmt(op.toDate.reference, 4), fmt(op.toDate.actual, 4), fmt(op.toDate.gap, 4), ...GAP_PARTS.map((p) => fmt(op.months.reduce((a, x) => a + (x[p.key] ?? 0), 0), 4))],
       ])
+    // the rating of the months (absent when it could not be made: the issue is noted above)
+    if (!op.months.some((x) => x.designEfficiency > 0)) return
     doc.moveDown(0.6)
     table(doc,
       [
@@ -241,7 +250,7 @@ const operating: Section = {
       ],
       op.months.map((x) => [
         x.month, fmt(x.gasFlow, 4), fmt(x.solventFlow, 4), c(x.solventNeeded), fmt(x.expectedRecovery, 4), c(x.measuredRecovery),
-        `${c(x.achievedEfficiency) || '-'} / ${fmt(x.designEfficiency, 3)}`, x.insideWindow ? 'inside' : `outside: ${x.outside.join(', ')}`,
+        `${c(x.achievedEfficiency) || 'n/a'} / ${fmt(x.designEfficiency, 3)}`, x.insideWindow ? 'inside' : `outside: ${x.outside.join(', ')}`,
       ]))
     note(doc, 'Achieved efficiency: back-calculated from the measured recovery at the month\'s flows. Solvent needed: the solvent at which the as-built column at design efficiency reaches the design recovery with the month\'s gas.')
   },
@@ -315,7 +324,8 @@ export function renderPdf(m: ReportModel): Promise<Buffer> {
   const width = contentWidth(doc)
 
   dataSheetPage(doc, m)
-  doc.addPage()
+  if (m.dataSheet.length) doc.addPage()
+  else doc.y += 4
   for (const s of sectionsOf(m)) s.render(doc, m)
 
   // ---- page footers

@@ -304,9 +304,9 @@ function sizeIn(u: DisplayUnits, size: number, unit: string): { size: number; si
     return { size: convert(size, unit, to), sizeUnit: prettyUnit(to) }
   }
   for (const [si, us, factor] of PAIRED) {
-    if (unit === si && u.system === 'US') return { size: size / factor, sizeUnit: prettyUnit(us) }
-    if (unit === us && u.system === 'SI') return { size: size * factor, sizeUnit: prettyUnit(si.replace('m3', 'm^3')) }
-    if (unit === si) return { size, sizeUnit: prettyUnit(si.replace('m3', 'm^3')) }
+    if (unit !== si && unit !== us) continue
+    const inSI = unit === si ? size : size * factor
+    return u.system === 'US' ? { size: inSI / factor, sizeUnit: prettyUnit(us) } : { size: inSI, sizeUnit: prettyUnit(si.replace('m3', 'm^3')) }
   }
   return { size, sizeUnit: `${unit.replace(/ /g, '·')} (correlation unit)` }
 }

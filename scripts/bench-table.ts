@@ -6,7 +6,7 @@
  * No thresholds: the figures are reported, never asserted.
  */
 import { spawnSync, execFileSync } from 'node:child_process'
-import { existsSync, mkdtempSync, openSync, readFileSync, rmSync, writeSync, closeSync } from 'node:fs'
+import { mkdtempSync, openSync, readFileSync, rmSync, writeSync, closeSync } from 'node:fs'
 import { availableParallelism, tmpdir } from 'node:os'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
@@ -217,7 +217,8 @@ async function apiRow(rows: Row[]): Promise<void> {
 }
 
 async function clientRow(rows: Row[]): Promise<void> {
-  if (!existsSync(join(root, 'dist/index.html'))) execFileSync('npx', ['vite', 'build', '--logLevel', 'error'], { cwd: root, stdio: 'inherit' })
+  // always a fresh build: a dist/ left from older sources would be measured otherwise
+  execFileSync('npx', ['vite', 'build', '--logLevel', 'error'], { cwd: root, stdio: 'inherit' })
   const { clientFirstLoad } = (await import(join(root, 'scripts/client-size.mjs'))) as { clientFirstLoad: (dist: string) => { files: number; raw: number; gzip: number; brotli: number } }
   const r = clientFirstLoad(join(root, 'dist'))
   rows.push({ what: 'client, first load (JS + CSS that index.html loads)', target: '<= 170 KB gzip; precompressed brotli + gzip; immutable caching of hashed files', measured: `${(r.gzip / 1024).toFixed(1)} KB gzip (${(r.brotli / 1024).toFixed(1)} KB brotli, ${(r.raw / 1024).toFixed(0)} KB raw, ${r.files} files); .br/.gz written at build, /assets/ served immutable`, wall: '-', cpu: '-' })

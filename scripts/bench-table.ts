@@ -2,6 +2,7 @@
  * The speed table of the product, measured on the machine it runs on: every row with its target,
  * the measured figure, wall time and CPU time. Run by `npm run bench` (scripts/bench.sh starts a
  * throw-away server for the API row). Environment: BENCH_BATCH_CASES (default 1,000,000),
+ * BENCH_ONLY (comma-separated steps: command lines, batch, engine, API, client),
  * BENCH_API_URL / BENCH_TOKEN / BENCH_SERVER_PID (set by bench.sh).
  * No thresholds: the figures are reported, never asserted.
  */
@@ -226,7 +227,10 @@ async function clientRow(rows: Row[]): Promise<void> {
 
 export async function benchTable(): Promise<Row[]> {
   const rows: Row[] = []
+  // BENCH_ONLY=API,client measures only those rows (a quick look while working on one of them)
+  const only = process.env.BENCH_ONLY?.split(',').map((x) => x.trim())
   const step = async (name: string, f: (r: Row[]) => void | Promise<void>) => {
+    if (only && !only.includes(name)) return
     process.stdout.write(`  measuring: ${name} ...\n`)
     await f(rows)
   }

@@ -3,6 +3,7 @@ import { AppError, ForbiddenError, ValidationError, zodDetails } from '../errors
 import { caseFromRequest, parseBasis, parseSearch, runDesign, runOptimiseAsync, runRate, assertFinite, libraryWith } from './engine-gateway.ts'
 import { windowOptionsSchema } from '../../shared/schemas/rating.ts'
 import { siteLibrary } from './runs.ts'
+import { assertOptimiseCapacity } from './optimise-pool.ts'
 import { basisInForce } from './cost-bases.ts'
 import { loadPreset, hasPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
@@ -117,6 +118,7 @@ export async function rate(user: AuthUser, body: unknown) {
 /** The lowest-cost design of { case, costBasis?, search?, siteId? } with curves and sensitivity. */
 export async function optimiseCase(user: AuthUser, body: unknown) {
   const b = parseOr400(envelope.extend({ case: z.unknown(), search: z.unknown().optional() }), body, 'body')
+  assertOptimiseCapacity()
   const ctx = await siteContext(user, b.siteId)
   const basis = resolveBasis(b.costBasis, ctx.basis, 'body.costBasis') ?? loadPreset(DEFAULT_PRESET)
   const c = caseFromRequest(b.case, ctx.library, 'body.case')

@@ -2,11 +2,12 @@
  * The speed table of the product, measured on the machine it runs on: every row with its target,
  * the measured figure, wall time and CPU time. Run by `npm run bench` (scripts/bench.sh starts a
  * throw-away server for the API row). Environment: BENCH_BATCH_CASES (default 1,000,000),
+ * BENCH_ONLY (comma-separated steps: command lines, batch, engine, API, client),
  * BENCH_API_URL / BENCH_TOKEN / BENCH_SERVER_PID (set by bench.sh).
  * No thresholds: the figures are reported, never asserted.
  */
 import { spawnSync, execFileSync } from 'node:child_process'
-import { existsSync, mkdtempSync, openSync, readFileSync, rmSync, writeSync, closeSync } from 'node:fs'
+import { mkdtempSync, openSync, readFileSync, rmSync, writeSync, closeSync } from 'node:fs'
 import { availableParallelism, tmpdir } from 'node:os'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
@@ -218,7 +219,8 @@ async function apiRow(rows: Row[]): Promise<void> {
 }
 
 async function clientRow(rows: Row[]): Promise<void> {
-  if (!existsSync(join(root, 'dist/index.html'))) execFileSync('npx', ['vite', 'build', '--logLevel', 'error'], { cwd: root, stdio: 'inherit' })
+  // always a fresh build: a dist/ left from older sources would be measured otherwise
+  execFileSync('npx', ['vite', 'build', '--logLevel', 'error'], { cwd: root, stdio: 'inherit' })
   const { clientFirstLoad } = (await import(join(root, 'scripts/client-size.mjs'))) as { clientFirstLoad: (dist: string) => { files: number; raw: number; gzip: number; brotli: number } }
   const r = clientFirstLoad(join(root, 'dist'))
   rows.push({ what: 'client, first load (JS + CSS that index.html loads)', target: '<= 170 KB gzip; precompressed brotli + gzip; immutable caching of hashed files', measured: `${(r.gzip / 1024).toFixed(1)} KB gzip (${(r.brotli / 1024).toFixed(1)} KB brotli, ${(r.raw / 1024).toFixed(0)} KB raw, ${r.files} files); .br/.gz written at build, /assets/ served immutable`, wall: '-', cpu: '-' })
@@ -226,7 +228,10 @@ async function clientRow(rows: Row[]): Promise<void> {
 
 export async function benchTable(): Promise<Row[]> {
   const rows: Row[] = []
+  // BENCH_ONLY=API,client measures only those rows (a quick look while working on one of them)
+  const only = process.env.BENCH_ONLY?.split(',').map((x) => x.trim())
   const step = async (name: string, f: (r: Row[]) => void | Promise<void>) => {
+    if (only && !only.includes(name)) return
     process.stdout.write(`  measuring: ${name} ...\n`)
     await f(rows)
   }

@@ -4,6 +4,7 @@ import { caseFromRequest, parseBasis, parseSearch, runDesign, runOptimiseAsync, 
 import { robustSpecSchema, uncertaintySpecSchema } from '../../shared/schemas/uncertainty.ts'
 import { windowOptionsSchema } from '../../shared/schemas/rating.ts'
 import { siteLibrary } from './runs.ts'
+import { assertOptimiseCapacity } from './optimise-pool.ts'
 import { basisInForce } from './cost-bases.ts'
 import { loadPreset, hasPreset, DEFAULT_PRESET } from '../engine/costing/index.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
@@ -118,6 +119,7 @@ export async function rate(user: AuthUser, body: unknown) {
 /** The lowest-cost design of { case, costBasis?, search?, siteId? } with curves and sensitivity. */
 export async function optimiseCase(user: AuthUser, body: unknown) {
   const b = parseOr400(envelope.extend({ case: z.unknown(), search: z.unknown().optional(), robust: z.unknown().optional() }), body, 'body')
+  assertOptimiseCapacity()
   const ctx = await siteContext(user, b.siteId)
   const basis = resolveBasis(b.costBasis, ctx.basis, 'body.costBasis') ?? loadPreset(DEFAULT_PRESET)
   const c = caseFromRequest(b.case, ctx.library, 'body.case')

@@ -170,16 +170,27 @@ function dispatch(): void {
   }
 }
 
+function busyError(): ServiceBusyError {
+  const seconds = Math.max(1, Math.ceil(((waiting.length / Math.max(1, slots.length)) * meanMs) / 1000))
+  return new ServiceBusyError('The optimiser is busy with other requests; try again in a few seconds.', seconds)
+}
+
+/**
+ * Refuses a new optimisation at once (503 + Retry-After) when the queue is full, before the
+ * request costs the HTTP thread a database round trip, the case's parse and its hash: under a
+ * burst the refusals go out quickly and cheap requests are not held up behind them.
+ */
+export function assertOptimiseCapacity(): void {
+  if (WORKERS > 0 && !broken && slots.length > 0 && waiting.length >= MAX_QUEUE) throw busyError()
+}
+
 async function compute(key: string, job: EngineJob): Promise<JobResult> {
   const slot = leastBusy()
   let result: JobResult
   if (!slot) {
     result = runJob(job)
   } else {
-    if (waiting.length >= MAX_QUEUE) {
-      const seconds = Math.max(1, Math.ceil(((waiting.length / Math.max(1, slots.length)) * meanMs) / 1000))
-      throw new ServiceBusyError('The optimiser is busy with other requests; try again in a few seconds.', seconds)
-    }
+    if (waiting.length >= MAX_QUEUE) throw busyError()
     const id = nextId++
     result = await new Promise<JobResult>((resolve, reject) => {
       waiting.push({ id, job, resolve, reject })

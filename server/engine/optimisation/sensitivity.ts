@@ -44,6 +44,20 @@ export const sensitivityItems: SensItem[] = [
   } },
 ]
 
+/**
+ * A copy of plain data (objects, arrays, numbers, strings): the cost basis is copied twice per
+ * item, and structuredClone's serialiser costs several times this walk.
+ */
+function clonePlain<T>(v: T): T {
+  if (Array.isArray(v)) return v.map(clonePlain) as T
+  if (v !== null && typeof v === 'object') {
+    const out: Record<string, unknown> = {}
+    for (const k of Object.keys(v)) out[k] = clonePlain((v as Record<string, unknown>)[k])
+    return out as T
+  }
+  return v
+}
+
 /** One formatter for the notes: toLocaleString would build a new one for every number. */
 const THOUSANDS = new Intl.NumberFormat('en-GB')
 
@@ -91,7 +105,7 @@ export function sensitivity(ev: Evaluator, basis: CostBasisData, box: Box, at: X
     if (base === 0) continue
     const side = (sign: -1 | 1) => {
       const sv = sensitivityValue(it, base, sign * fraction)
-      const b = structuredClone(basis)
+      const b = clonePlain(basis)
       it.set(b, sv.value)
       const repricedTac = ev.tac(at, b)
       const p = refine(ev, b, box, { x: at, tac: repricedTac }, true)

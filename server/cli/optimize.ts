@@ -11,7 +11,7 @@ import { fileURLToPath } from 'node:url'
 import { reportCliError } from './errors.ts'
 import { caseToSI, InvalidInputError } from '../engine/index.ts'
 import { optimise } from '../engine/optimisation/optimise.ts'
-import type { OptimiseResult } from '../engine/optimisation/core.ts'
+import type { OptimiseResult } from '../engine/optimisation/index.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import { readCaseFile, costBasisFrom, searchFrom, isObject } from './input.ts'
 

@@ -1,6 +1,5 @@
 import { parentPort } from 'node:worker_threads'
-import { optimise } from '../engine/optimisation/index.ts'
-import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
+import { optimise, NoFeasibleDesignError } from '../engine/optimisation/index.ts'
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
 import type { CaseSI } from '../engine/case.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'

@@ -12,7 +12,7 @@
  * Hot path: no zod, no mathjs, no I/O; few allocations. Pass { profile: false, detail: false }
  * for the leanest result (optimiser).
  */
-import type { DesignResult, DesignSummary, DesignVariables, EngineIssue, EngineWarning } from './contract.ts'
+import { summaryInSI, type DesignResult, type DesignSummary, type DesignVariables, type EngineIssue, type EngineWarning } from './contract.ts'
 import type { CaseSI } from './case.ts'
 import type { ReferenceKey } from './references.ts'
 import { InfeasibleDesignError } from './errors.ts'
@@ -25,7 +25,6 @@ import { trayState } from './column/trays.ts'
 import { trayChecks } from './column/checks.ts'
 import { buildProfile } from './column/profile.ts'
 import { guardFinite, numericSum } from './column/guard.ts'
-import { summaryInSI } from '../../shared/summaryUnits.ts'
 
 export { equilibriumCurveOf } from './column/equilibrium.ts'
 

@@ -86,7 +86,7 @@ export const standingColumnAnswer = obj
 
 const csvIssue = z.looseObject({ line: z.number().int().nullable(), column: z.string().nullable(), message: z.string() })
 
-export const equilibriumPreviewAnswer = z.looseObject({ fileName: z.string(), points: z.array(obj), errors: z.array(csvIssue), warnings: z.array(z.unknown()) })
+export const equilibriumPreviewAnswer = z.looseObject({ fileName: z.string(), points: z.array(z.tuple([z.number(), z.number()])).meta({ description: '[x, y] pairs' }), errors: z.array(csvIssue), warnings: z.array(z.unknown()) })
 
 export const equilibriumTableAnswer = z.looseObject({ id, name: z.string() })
 

@@ -38,8 +38,8 @@ export const SUMMARY_PUBLIC_UNITS = {
 
 const CONVERTED = Object.entries(SUMMARY_PUBLIC_UNITS) as [keyof typeof SUMMARY_PUBLIC_UNITS, QuantityKind][]
 
-/** Mark a summary built in SI (inside the engine) as such. */
-export function summaryInSI(s: DesignSummary): DesignSummarySI {
+/** Mark a summary converted to SI as such. */
+function summaryInSI(s: DesignSummary): DesignSummarySI {
   return s as DesignSummarySI
 }
 

@@ -1,5 +1,5 @@
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
-import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
+import { NoFeasibleDesignError } from '../engine/optimisation/index.ts'
 
 /**
  * The command lines' error report: the reason on stderr and the exit code.

@@ -18,6 +18,13 @@
  */
 export type { CheckResult, EngineWarning, StageProfilePoint } from '../../shared/schemas/results.ts'
 export type { DesignSummarySI as DesignSummary, DesignResultSI as DesignResult } from '../../shared/summaryUnits.ts'
+import type { DesignSummarySI } from '../../shared/summaryUnits.ts'
+import type { DesignSummary as SummaryFields } from '../../shared/schemas/results.ts'
+
+/** Mark a summary the engine built in SI as such (a type-only brand; nothing happens at run time). */
+export function summaryInSI(s: SummaryFields): DesignSummarySI {
+  return s as DesignSummarySI
+}
 
 /** The variables the optimiser moves; everything else comes from the case. */
 export interface DesignVariables {

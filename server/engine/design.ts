@@ -12,7 +12,7 @@
  * Hot path: no zod, no mathjs, no I/O; few allocations. Pass { profile: false, detail: false }
  * for the leanest result (optimiser).
  */
-import type { DesignResult, DesignSummary, DesignVariables, EngineIssue, EngineWarning } from './contract.ts'
+import { summaryInSI, type DesignResult, type DesignSummary, type DesignVariables, type EngineIssue, type EngineWarning } from './contract.ts'
 import type { CaseSI } from './case.ts'
 import type { ReferenceKey } from './references.ts'
 import { InfeasibleDesignError } from './errors.ts'
@@ -27,7 +27,6 @@ import { trayChecks } from './column/checks.ts'
 import { buildProfile } from './column/profile.ts'
 import { guardFinite } from './column/guard.ts'
 import { detailChecksum, type DesignDetail } from './column/detail.ts'
-import { summaryInSI } from '../../shared/summaryUnits.ts'
 
 export { equilibriumCurveOf } from './column/equilibrium.ts'
 

@@ -7,6 +7,7 @@ import { caseSchema } from '../../shared/schemas/case.ts'
 import { searchSpecSchema } from '../../shared/schemas/search.ts'
 import { ratingResultSchema } from '../../shared/schemas/rating.ts'
 import { robustSpecSchema, uncertaintyRequestSchema, uncertaintyResultSchema } from '../../shared/schemas/uncertainty.ts'
+import { componentAnswer, refusedCaseAnswer } from '../../shared/schemas/answers.ts'
 
 const siteAndBasis = {
   siteId: z.number().int().positive().optional().meta({ description: "Use this site's components and the cost basis in force" }),
@@ -20,6 +21,7 @@ export function designRoutes(router: Router): Router {
   return defineRoutes(router, [
     {
       method: 'get', path: '/components', access: { kind: 'signedIn' }, summary: 'The component library (with a site\'s own components when ?siteId= is given)',
+      doc: { response: z.array(componentAnswer) },
       handler: (req) => {
         const siteId = req.query.siteId === undefined ? undefined : parse(z.coerce.number().int().positive(), req.query.siteId, 'query.siteId')
         return svc.listComponents(req.user!, siteId)
@@ -29,7 +31,7 @@ export function designRoutes(router: Router): Router {
       method: 'post', path: '/designs/evaluate', access: { kind: 'signedIn' },
       summary: 'Design one case, { case, costBasis? , siteId? } or { cases: [...] } (stateless)',
       status: 200,
-      doc: { body: evaluateRequest, response: z.union([pricedDesignSchema, z.array(pricedDesignSchema)]) },
+      doc: { body: evaluateRequest, response: z.union([pricedDesignSchema, z.array(z.union([pricedDesignSchema, refusedCaseAnswer]))]) },
       handler: async (req, res) => {
         const out = await svc.evaluate(req.user!, req.body)
         if (Array.isArray(out)) res.setHeader('X-Cases-Refused', String(out.filter((x) => typeof x === 'object' && x !== null && 'error' in x).length))

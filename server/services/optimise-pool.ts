@@ -1,7 +1,7 @@
 import { Worker } from 'node:worker_threads'
 import { availableParallelism } from 'node:os'
 import { createHash } from 'node:crypto'
-import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
+import { NoFeasibleDesignError } from '../engine/optimisation/index.ts'
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
 import { logger } from '../logger.ts'
 import { ServiceBusyError } from '../errors.ts'

@@ -1,8 +1,7 @@
 import { parentPort } from 'node:worker_threads'
 import { readlinkSync } from 'node:fs'
 import { setPriority } from 'node:os'
-import { optimise } from '../engine/optimisation/index.ts'
-import { NoFeasibleDesignError } from '../engine/optimisation/core.ts'
+import { NoFeasibleDesignError } from '../engine/optimisation/index.ts'
 import { InvalidInputError, InfeasibleDesignError, ConvergenceError } from '../engine/errors.ts'
 import { runJob, type EngineJob } from './jobs.ts'
 

@@ -51,8 +51,9 @@ describe('robust optimum', () => {
       const rec = rLo + ((rHi - rLo) * i) / 14
       for (let j = 0; j <= 10; j++) {
         const s = search.solventFactor.min + ((search.solventFactor.max - search.solventFactor.min) * j) / 10
-        const d = ev.designAt({ u: toU(rec), s, f: o.floodFraction, t })
-        if (typeof d === 'string') continue
+        const x = { u: toU(rec), s, f: o.floodFraction, t }
+        if (typeof ev.designAt(x) === 'string') continue
+        const d = ev.resultAt(x)
         const out = rateAll(fixColumn(c, d, basis), set, { kind: 'recovery', recovery: rLo, emissionLimit: null })
         let k = 0, sum = 0
         for (let n = 0; n < set.n; n++) {

@@ -1,6 +1,7 @@
 import request from 'supertest'
 import type { Express } from 'express'
 import { createApp } from '../../server/app.ts'
+import { recordAnswers } from './answers.ts'
 
 export const DEMO_PASSWORD = 'scrubwright-demo'
 export const PEOPLE = {
@@ -11,6 +12,9 @@ export const PEOPLE = {
   bayEngineer: 'bay.engineer@halvard.example',
 } as const
 export type Person = keyof typeof PEOPLE
+
+// every JSON answer of the test file is checked against the schema its route documents (answers.ts)
+recordAnswers()
 
 let app: Express | undefined
 export function testApp(): Express {

@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest'
 import { Validator } from '@seriousme/openapi-schema-validator'
-import { api, tokenFor } from './helpers.ts'
+import { ZodType } from 'zod'
+import { api, siteIds, tokenFor } from './helpers.ts'
 import { routeTable } from '../../server/routes/define.ts'
 import { openApiPath } from '../../server/openapi.ts'
 
@@ -24,6 +25,44 @@ describe('the OpenAPI description', () => {
     expect([...declared].filter((k) => !documented.has(k))).toEqual([])
     expect([...documented].filter((k) => !declared.has(k))).toEqual([])
     expect(declared.size).toBeGreaterThan(50)
+  })
+
+  it('every route in the route table documents its answer: a zod schema, a file, or no body (204)', () => {
+    const undocumented = routeTable
+      .filter((rt) => !(rt.status === 204 || rt.method === 'delete' || rt.doc?.response instanceof ZodType || rt.doc?.response === 'pdf' || rt.doc?.response === 'xlsx'))
+      .map((rt) => `${rt.method} ${rt.path}`)
+    expect(undocumented).toEqual([])
+  })
+
+  it('every JSON answer in the document points at a schema, and real answers validate against the same zod schemas', async () => {
+    const doc = (await api().get('/api/v1/openapi.json')).body as Doc
+    const empty = Object.entries(doc.paths).flatMap(([p, ops]) =>
+      Object.entries(ops).flatMap(([m, op]) =>
+        Object.entries(op.responses)
+          .filter(([code, r]) => code.startsWith('2') && code !== '204' && JSON.stringify((r as { content?: unknown }).content ?? {}).includes('"schema":{}'))
+          .map(([code]) => `${m} ${p} ${code}`),
+      ),
+    )
+    expect(empty).toEqual([])
+    // a few real answers, each parsed with the zod schema its route documents (tests/server/answers.ts
+    // does the same for every answer of every API test file)
+    const auth = { Authorization: `Bearer ${await tokenFor('admin')}` }
+    const { cobalt } = await siteIds()
+    for (const [path, route] of [
+      [`/api/v1/sites/${cobalt}/studies`, '/sites/:siteId/studies'],
+      [`/api/v1/sites/${cobalt}/cost-bases`, '/sites/:siteId/cost-bases'],
+      ['/api/v1/auth/me', '/auth/me'],
+      [`/api/v1/sites/${cobalt}/members`, '/sites/:siteId/members'],
+    ] as const) {
+      const r = await api().get(path).set(auth)
+      expect(r.status, path).toBe(200)
+      const schema = routeTable.find((rt) => rt.method === 'get' && rt.path === route)!.doc!.response as ZodType
+      const parsed = schema.safeParse(r.body)
+      expect(parsed.success, `${route}: ${parsed.error?.message ?? ''}`).toBe(true)
+    }
+    // and a wrong answer is refused, so the check can fail
+    const studies = routeTable.find((rt) => rt.method === 'get' && rt.path === '/sites/:siteId/studies')!.doc!.response as ZodType
+    expect(studies.safeParse({ items: [{ id: 'one' }], total: 1 }).success).toBe(false)
   })
 
   it('describes the design and optimisation answers with the shared schemas', async () => {

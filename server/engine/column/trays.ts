@@ -62,30 +62,73 @@ export interface TrayGeometry {
   Co: number
 }
 
-function trayHydraulics(s: EndStreams, sz: EndSizing, t: number, c: CaseSI, g: TrayGeometry, AhAa: number, Cl: number): TrayHydraulics {
-  const tr = c.tray
-  const rhoL = c.solvent.density
+/** What the heads of a tray need: the installed areas and the tray and liquid data (SI). */
+export interface HeadsGeometry {
+  Ad: number // m2
+  Aa: number // m2
+  Ah: number // m2
+  AhAa: number // -
+  Lw: number // m
+  Co: number // -, orifice coefficient
+  t: number // m, tray spacing
+  hw: number // m, weir height
+  clearance: number // m, apron clearance under the downcomer
+  dO: number // m, hole diameter
+  rhoL: number // kg/m3
+  sigma: number // N/m
+  /** coefficient of the clear-liquid height for this weir height, when computed once for the column */
+  Cl?: number
+}
+
+/** The heads and checks' values of one column end (all of TrayHydraulics but the fraction of flood). */
+export type TrayHeads = Omit<TrayHydraulics, 'fractionFlood'>
+
+/**
+ * Heads, weeping, entrainment and downcomer of one column end at a tray geometry: the one
+ * calculation the design (at the selected diameter) and the rating (at the as-built areas) share.
+ * Equations: h_t = h_d + h_L + h_sigma, dP = h_t g rho_L; Fr_h = [rho_V v_o^2/(rho_L g h_L)]^0.5;
+ *   backup = h_w + h_ow + h_t + h_2 <= (t + h_w)/2; residence = A_d backup / q_L (the correlations
+ *   and their sources in hydraulics/tray.ts). Fills `out` field by field when given (no allocation).
+ */
+export function trayHeads<T extends TrayHeads>(s: EndStreams, g: HeadsGeometry, out: T): T {
   const vo = s.Q / g.Ah
   const va = s.Q / g.Aa
-  const Ks = va * Math.sqrt(s.rhoV / (rhoL - s.rhoV))
+  const Ks = va * Math.sqrt(s.rhoV / (g.rhoL - s.rhoV))
   const phiE = frothDensity(Ks)
-  const hL = clearLiquidHeight(phiE, tr.weirHeight, s.qL, g.Lw, Cl)
-  const hd = dryTrayHead(vo, g.Co, s.rhoV, rhoL, AhAa)
-  const hSigma = residualHead(c.solvent.surfaceTension, rhoL, tr.holeDiameter)
+  const hL = clearLiquidHeight(phiE, g.hw, s.qL, g.Lw, g.Cl)
+  const hd = dryTrayHead(vo, g.Co, s.rhoV, g.rhoL, g.AhAa)
+  const hSigma = residualHead(g.sigma, g.rhoL, g.dO)
   const ht = hd + hL + hSigma
-  const dP = ht * G_ACC * rhoL
-  const Fr = holeFroudeNumber(s.rhoV, vo, rhoL, hL)
-  const E = entrainmentBenitez(hL, tr.holeDiameter, phiE, Ks, AhAa, t, rhoL, s.rhoV)
+  const E = entrainmentBenitez(hL, g.dO, phiE, Ks, g.AhAa, g.t, g.rhoL, s.rhoV)
   const eMass = E * s.gasMass
-  const psi = eMass / (s.liqMass + eMass)
   const how = weirCrestFrancis(s.qL, g.Lw)
-  const Ada = Math.min(g.Lw * tr.downcomerClearance, g.Ad)
+  const Ada = Math.min(g.Lw * g.clearance, g.Ad)
   const h2 = downcomerEntranceLoss(s.qL, Ada)
-  const backup = tr.weirHeight + how + ht + h2
-  const backupLimit = 0.5 * (t + tr.weirHeight)
-  const residence = (g.Ad * backup) / s.qL
-  const fractionFlood = s.Q / g.An / sz.vF
-  return { vo, va, Ks, phiE, hL, hd, hSigma, ht, dP, Fr, entrainment: E, psi, how, h2, backup, backupLimit, residence, fractionFlood }
+  const backup = g.hw + how + ht + h2
+  out.vo = vo
+  out.va = va
+  out.Ks = Ks
+  out.phiE = phiE
+  out.hL = hL
+  out.hd = hd
+  out.hSigma = hSigma
+  out.ht = ht
+  out.dP = ht * G_ACC * g.rhoL
+  out.Fr = holeFroudeNumber(s.rhoV, vo, g.rhoL, hL)
+  out.entrainment = E
+  out.psi = eMass / (s.liqMass + eMass)
+  out.how = how
+  out.h2 = h2
+  out.backup = backup
+  out.backupLimit = 0.5 * (g.t + g.hw)
+  out.residence = (g.Ad * backup) / s.qL
+  return out
+}
+
+function trayHydraulics(s: EndStreams, sz: EndSizing, g: TrayGeometry, hg: HeadsGeometry): TrayHydraulics {
+  const h = trayHeads(s, hg, {} as TrayHydraulics)
+  h.fractionFlood = s.Q / g.An / sz.vF
+  return h
 }
 
 export interface TrayState {
@@ -116,15 +159,15 @@ export function trayState(c: CaseSI, sz: Sizing, bot: EndStreams, top: EndStream
     warnings.push({ code: 'outsideValidity', message: 'Orifice coefficient: the hole diameter is smaller than the plate thickness, outside the chart the fit comes from; the dry-tray head is extrapolated', path: 'tray.thickness' })
   }
   const geometry: TrayGeometry = { AdAt, At, Ad, An, Aa, Ah, Lw, Co }
-  const Cl = clearLiquidCoefficientOf(tr.weirHeight)
-  const hBot = trayHydraulics(bot, sz.sBot, sz.t, c, geometry, sz.AhAa, Cl)
-  const hTop = trayHydraulics(top, sz.sTop, sz.t, c, geometry, sz.AhAa, Cl)
+  const hg: HeadsGeometry = { Ad, Aa, Ah, AhAa: sz.AhAa, Lw, Co, t: sz.t, hw: tr.weirHeight, clearance: tr.downcomerClearance, dO: tr.holeDiameter, rhoL: c.solvent.density, sigma: c.solvent.surfaceTension, Cl: clearLiquidCoefficientOf(tr.weirHeight) }
+  const hBot = trayHydraulics(bot, sz.sBot, geometry, hg)
+  const hTop = trayHydraulics(top, sz.sTop, geometry, hg)
   // turndown: the lowest gas rate at design liquid rate, at the end that weeps first
   const tdf = tr.turndownFraction
   const topWeepsFirst = hTop.Fr <= hBot.Fr
   const sLow = topWeepsFirst ? top : bot
   const turn: EndStreams = { gasMol: sLow.gasMol * tdf, gasMass: sLow.gasMass * tdf, rhoV: sLow.rhoV, Q: sLow.Q * tdf, liqMass: sLow.liqMass, qL: sLow.qL }
-  const hTurn = trayHydraulics(turn, topWeepsFirst ? sz.sTop : sz.sBot, sz.t, c, geometry, sz.AhAa, Cl)
+  const hTurn = trayHydraulics(turn, topWeepsFirst ? sz.sTop : sz.sBot, geometry, hg)
   // second weeping method (Treybal eq. 6.46), when the gas viscosity is known
   const lwRatio = Lw / D
   const Zflow = D * Math.sqrt(1 - lwRatio * lwRatio)

@@ -1,4 +1,4 @@
-/** Optimiser: public surface. */
+/** Optimiser: the public surface; the rest of the server imports the optimiser from here. */
 export { optimise, bruteForce } from './optimise.ts'
 export {
   optimiseWith,
@@ -9,14 +9,6 @@ export {
   type BruteForceResolution,
   type BruteForceResult,
 } from './driver.ts'
-export {
-  NoFeasibleDesignError,
-  sensitivityItems,
-  type CurvePoint,
-  type DesignFn,
-  type OptimiseResult,
-  type OptimumPoint,
-  type SensitivityEntry,
-  type BoundHit,
-} from './core.ts'
+// the evaluator, the search tactics, curves and sensitivity (./core.ts says how they fit together)
+export * from './core.ts'
 export { boundHits, BOUND_TOLERANCE } from './bounds.ts'

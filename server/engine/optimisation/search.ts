@@ -93,28 +93,22 @@ export function searchOptimum(ev: Evaluator, basis: CostBasisData, opts: { grid?
   const fs = linspace(box.f[0], box.f[1], box.f[1] > box.f[0] ? nf : 1)
   const cand: { x: X; tac: number; trays: number }[] = []
   const reasons = new Set<string>()
-  for (let t = 0; t < ev.spacings.length; t++)
-    for (const u of us)
-      for (const s of ss)
-        for (const f of fs) {
-          const x = { u, s, f, t }
-          const e = ev.evaluate(x, basis)
-          if (e.feasible) cand.push({ x, tac: e.tac, trays: e.design?.summary.actualTrays ?? 0 })
-          else if (e.reason && reasons.size < 20) reasons.add(e.reason)
-        }
-  if (cand.length === 0) {
-    // a second, finer look before giving up (the feasible region can be thin)
-    const us2 = linspace(box.u[0], box.u[1], 2 * nu + 1)
-    const ss2 = linspace(box.s[0], box.s[1], 2 * ns + 1)
-    const fs2 = linspace(box.f[0], box.f[1], 2 * nf + 1)
+  /** Evaluate every grid point on every spacing; feasible ones become candidates, the first reasons are kept. */
+  const grid = (us: number[], ss: number[], fs: number[], keepReasons: boolean) => {
     for (let t = 0; t < ev.spacings.length; t++)
-      for (const u of us2)
-        for (const s of ss2)
-          for (const f of fs2) {
+      for (const u of us)
+        for (const s of ss)
+          for (const f of fs) {
             const x = { u, s, f, t }
             const e = ev.evaluate(x, basis)
             if (e.feasible) cand.push({ x, tac: e.tac, trays: e.design?.summary.actualTrays ?? 0 })
+            else if (keepReasons && e.reason && reasons.size < 20) reasons.add(e.reason)
           }
+  }
+  grid(us, ss, fs, true)
+  if (cand.length === 0) {
+    // a second, finer look before giving up (the feasible region can be thin)
+    grid(linspace(box.u[0], box.u[1], 2 * nu + 1), linspace(box.s[0], box.s[1], 2 * ns + 1), linspace(box.f[0], box.f[1], 2 * nf + 1), false)
   }
   if (cand.length === 0) {
     throw new NoFeasibleDesignError(

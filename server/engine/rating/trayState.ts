@@ -10,19 +10,9 @@
  * A_d = (A_d/A_t) A_t, net A_n = A_t - A_d, active A_a = A_t - 2 A_d unless the as-built
  * active area (calming zones and supports deducted) is given, hole A_h = (A_h/A_a) A_a.
  */
-import { G_ACC } from '../properties/constants.ts'
 import { capacityFactorFair, floodingVelocity, flowParameter } from '../hydraulics/flooding.ts'
-import {
-  clearLiquidHeight,
-  downcomerEntranceLoss,
-  dryTrayHead,
-  entrainmentBenitez,
-  frothDensity,
-  holeFroudeNumber,
-  residualHead,
-  weirCrestFrancis,
-} from '../hydraulics/tray.ts'
 import type { EndStreams } from '../column/sizing.ts'
+import { trayHeads, type TrayHeads } from '../column/trays.ts'
 
 /** The streams at one end of the column (SI): the design's own type. */
 export type { EndStreams }
@@ -49,29 +39,12 @@ export interface TrayGeometry {
   capacityFactors: number
 }
 
-/** The hydraulic state of one end at the geometry. Heads in m of clear liquid. */
-export interface TrayState {
+/** The hydraulic state of one end at the geometry: the Fair flooding numbers, then the heads (m of clear liquid) as the design has them. */
+export interface TrayState extends TrayHeads {
   FLV: number
   C: number // m/s, corrected capacity parameter
   vF: number // m/s, flooding velocity on the net area
   fractionFlood: number
-  vo: number
-  va: number
-  Ks: number
-  phiE: number
-  hL: number
-  hd: number
-  hSigma: number
-  ht: number
-  dP: number // Pa per tray
-  Fr: number // hole Froude number
-  entrainment: number // kg liquid / kg gas
-  psi: number // fractional entrainment e/(L + e)
-  how: number
-  h2: number
-  backup: number
-  backupLimit: number
-  residence: number // s
 }
 
 /**
@@ -94,42 +67,12 @@ export function trayStateAt(s: EndStreams, g: TrayGeometry, out?: TrayState): Tr
   const FLV = flowParameter(s.liqMass, s.gasMass, s.rhoV, g.rhoL)
   const C = capacityFactorFair(g.t, FLV) * g.capacityFactors
   const vF = C > 0 ? floodingVelocity(C, g.rhoL, s.rhoV) : 0
-  const vo = s.Q / g.Ah
-  const va = s.Q / g.Aa
-  const Ks = va * Math.sqrt(s.rhoV / (g.rhoL - s.rhoV))
-  const phiE = frothDensity(Ks)
-  const hL = clearLiquidHeight(phiE, g.hw, s.qL, g.Lw)
-  const hd = dryTrayHead(vo, g.Co, s.rhoV, g.rhoL, g.AhAa)
-  const hSigma = residualHead(g.sigma, g.rhoL, g.dO)
-  const ht = hd + hL + hSigma
-  const E = entrainmentBenitez(hL, g.dO, phiE, Ks, g.AhAa, g.t, g.rhoL, s.rhoV)
-  const eMass = E * s.gasMass
-  const how = weirCrestFrancis(s.qL, g.Lw)
-  const Ada = Math.min(g.Lw * g.clearance, g.Ad)
-  const h2 = downcomerEntranceLoss(s.qL, Ada)
-  const backup = g.hw + how + ht + h2
   r.FLV = FLV
   r.C = C
   r.vF = vF
   r.fractionFlood = vF > 0 ? s.Q / g.An / vF : Infinity
-  r.vo = vo
-  r.va = va
-  r.Ks = Ks
-  r.phiE = phiE
-  r.hL = hL
-  r.hd = hd
-  r.hSigma = hSigma
-  r.ht = ht
-  r.dP = ht * G_ACC * g.rhoL
-  r.Fr = holeFroudeNumber(s.rhoV, vo, g.rhoL, hL)
-  r.entrainment = E
-  r.psi = eMass / (s.liqMass + eMass)
-  r.how = how
-  r.h2 = h2
-  r.backup = backup
-  r.backupLimit = 0.5 * (g.t + g.hw)
-  r.residence = (g.Ad * backup) / s.qL
-  return r
+  // the heads, weeping, entrainment and downcomer: the design's own calculation (column/trays.ts)
+  return trayHeads(s, g, r)
 }
 
 /** The same streams with the gas scaled by fG and the liquid by fL (compositions kept). */

@@ -1,5 +1,5 @@
 import type { CaseSI } from '../../engine/case.ts'
-import type { CheckResult, DesignResult } from '../../engine/contract.ts'
+import type { CheckResult, DesignResult } from '../../../shared/schemas/results.ts'
 import type { CostBreakdown } from '../../engine/costing/index.ts'
 import { isUnitOf, convert } from '../../../shared/units.ts'
 import type { CheckRow, CostRow, Row, RowGroup } from './model.ts'

@@ -76,7 +76,7 @@ describe('operating-cost tracking, against a hand calculation', () => {
 
   it('flags a gas flow above the design and a solvent flow below what the design needs for its recovery', () => {
     // our own screening rule (no published source): design L/G = 300/400 = 0.75
-    const at = (gasFlow: number, solventFlow: number) => priceMonth({ month: '2026-03-01', gasFlow, solventFlow, recovery: 0.98 }, ctx).flags.map((f) => f.code)
+    const at = (gasFlow: number, solventFlow: number) => priceMonth(month({ month: '2026-03-01', gasFlow, solventFlow, recovery: 0.98 }), ctx).flags.map((f) => f.code)
     // exactly the design: neither flag
     expect(at(400, 300)).not.toContain('gasAboveDesign')
     expect(at(400, 300)).not.toContain('solventBelowDesign')
@@ -84,7 +84,7 @@ describe('operating-cost tracking, against a hand calculation', () => {
     expect(at(420, 315)).toContain('gasAboveDesign')
     expect(at(420, 315)).not.toContain('solventBelowDesign')
     // 400 kmol/h gas with 270 kmol/h solvent: needs 0.75 × 400 = 300, has 90 %: flagged, above the minimum 200
-    const low = priceMonth({ month: '2026-03-01', gasFlow: 400, solventFlow: 270, recovery: 0.98 }, ctx)
+    const low = priceMonth(month({ month: '2026-03-01', gasFlow: 400, solventFlow: 270, recovery: 0.98 }), ctx)
     expect(low.flags.map((f) => f.code)).toEqual(['solventBelowDesign'])
     expect(low.flags[0]!.message).toContain('90 % of what the design needs')
     // 360 kmol/h gas with 270 kmol/h solvent: needs 0.75 × 360 = 270: not flagged

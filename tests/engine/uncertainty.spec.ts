@@ -16,6 +16,7 @@ import { latinHypercube, samplerOf } from '../../server/engine/uncertainty/distr
 import { normalCdf, normalQuantile, seedRng } from '../../server/engine/uncertainty/random.ts'
 import { proportionError, spreadOf } from '../../server/engine/uncertainty/statistics.ts'
 import { InvalidInputError } from '../../server/engine/errors.ts'
+import { summaryToPublic } from '../../shared/summaryUnits.ts'
 
 const basis = loadPreset('halvard-cobalt-ridge')
 /** Standard normal CDF from mathjs's erf: an implementation independent of the product's. */
@@ -46,7 +47,7 @@ describe('propagation against an independent Kremser calculation', () => {
     const r = uncertaintySI(c, basis, spec)
     expect(r.design.method).toBe('kremser')
     const d = designSI(c)
-    const L = d.summary.solventFlow // kmol/h
+    const L = summaryToPublic(d.summary).solventFlow // kmol/h
     const V = 100 // kmol/h
     const K0 = 1.2
     const E0 = 0.5
@@ -111,7 +112,7 @@ describe('the per-sample rating is the standing-column rating', () => {
   const ones: SampleMultipliers = { K: 1, efficiency: 1, gasFlow: 1, soluteMoleFraction: 1, electricity: 1, solventCost: 1, productValue: 1, emissionCharge: 1, capitalCost: 1 }
   const rated = (m: Partial<SampleMultipliers>) => rateSample(fc, { ...ones, ...m }, scratchOf(fc), {} as SampleRating)
   const viaRatingPath = (m: { K: number; gasFlow: number; soluteMoleFraction: number }) => {
-    const rc = ratingCaseOfDesign(raw, d.summary) as Record<string, Record<string, unknown>>
+    const rc = ratingCaseOfDesign(raw, summaryToPublic(d.summary)) as Record<string, Record<string, unknown>>
     const gas = { ...rc.gas, flow: (raw.gas as { flow: number }).flow * m.gasFlow, soluteMoleFraction: (raw.gas as { soluteMoleFraction: number }).soluteMoleFraction * m.soluteMoleFraction }
     // the samples keep the balance method of the nominal design (no jump between methods)
     return rateCase({ ...rc, gas, equilibrium: { model: 'constantK', K: 0.62 * m.K }, method: fc.nominal.method })

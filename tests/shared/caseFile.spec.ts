@@ -42,7 +42,7 @@ describe('case files', () => {
     if (!bad.ok) {
       const paths = bad.problems.map((p) => p.path)
       expect(paths).toEqual(expect.arrayContaining(['gas.flow', 'recovery', 'solventFactor']))
-      expect(bad.problems.find((p) => p.path === 'solventFactor')!.message).toBe('is required')
+      expect(bad.problems.find((p) => p.path === 'solventFactor')!.message).toMatch(/required/)
     }
     const batch = readCaseFile(readFileSync('data/examples/design-batch.json', 'utf8'))
     expect(batch.ok).toBe(false)

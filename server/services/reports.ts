@@ -135,9 +135,28 @@ async function operatingPart(siteId: number, studyId: number, u: DisplayUnits): 
  * titled table with notes, printed after the operating log and given its own sheet in the
  * workbook. Add a feature's section here; return nothing when it does not apply to the study.
  */
-async function featureSections(ctx: { siteId: number; studyId: number; units: DisplayUnits; design: DesignResult | null }): Promise<ReportSection[]> {
-  void ctx
-  return []
+async function featureSections(ctx: { siteId: number; studyId: number; units: DisplayUnits; design: DesignResult | null; optimisation: OptimiseResult | null }): Promise<ReportSection[]> {
+  const out: ReportSection[] = []
+  const o = ctx.optimisation
+  if (o && (o.sensitivity?.length || o.boundHits?.length)) {
+    const names: Record<string, string> = { recovery: 'Recovery', solventFactor: 'Solvent factor L/Lmin', floodFraction: 'Fraction of flood', traySpacing: 'Tray spacing' }
+    out.push({
+      key: 'sensitivity',
+      title: 'Sensitivity of the optimum',
+      notes: [
+        'Each price or setting moved down and up from its base value and the design optimised again at that value; the values actually used are listed (a value may be rounded or capped, e.g. operating hours at 8,760 h/yr).',
+        ...(o.boundHits ?? []).map((h) => `The optimum sits on the ${h.bound} bound of ${names[h.variable] ?? h.variable} (${Number(h.value.toPrecision(4))}): ${h.advice}`),
+        ...(o.sensitivity ?? []).flatMap((e) => [e.lowLimited ? `${e.label}, low: ${e.lowNote}` : '', e.highLimited ? `${e.label}, high: ${e.highNote}` : ''].filter(Boolean)),
+      ],
+      columns: [
+        { title: 'Item' }, { title: 'Unit' }, { title: 'Base value' },
+        { title: 'Low value used' }, { title: 'Low change', unit: '%' }, { title: 'TAC at low' },
+        { title: 'High value used' }, { title: 'High change', unit: '%' }, { title: 'TAC at high' },
+      ],
+      rows: (o.sensitivity ?? []).map((e) => [e.label, e.unit, e.baseValue, e.lowValue, 100 * e.lowChange, e.low.tac, e.highValue, 100 * e.highChange, e.high.tac]),
+    })
+  }
+  return out
 }
 
 /**
@@ -258,7 +277,7 @@ export async function buildReport(siteId: number, studyId: number, reader: { nam
     options: optionRows,
     recommendedOptionId: s.recommendedOptionId,
     operating: s.status === 'approved' ? await operatingPart(siteId, studyId, u) : null,
-    sections: await featureSections({ siteId, studyId, units: u, design: designResult }),
+    sections: await featureSections({ siteId, studyId, units: u, design: designResult, optimisation: opt }),
     review: events.map((e) => ({ kind: e.kind, who: who.get(e.userId) ?? `user ${e.userId}`, at: e.createdAt, body: e.body })),
     // The report's own vessel caution stands for the engine's wordings of the same warning.
     cautions: [VESSEL_CAUTION, ...new Set(cautions.filter((c) => c !== VESSEL_CAUTION)), REPORT_CAUTION],

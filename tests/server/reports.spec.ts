@@ -356,7 +356,19 @@ describe('study report (PDF): what a practitioner reads', () => {
 describe('study export (XLSX): one sheet per part, full precision', () => {
   it('stores numbers at full precision with display formats and units in the headers', async () => {
     const wb = await workbookOf(studyId)
-    expect(wb.worksheets.map((w) => w.name)).toEqual(['Inputs', 'Design summary', 'Trays', 'Profile', 'Economics', 'Curves', 'Options', 'Operating log', 'Sign-off'])
+    expect(wb.worksheets.map((w) => w.name)).toEqual(['Inputs', 'Design summary', 'Trays', 'Profile', 'Economics', 'Curves', 'Options', 'Operating log', 'Sensitivity of the optimum', 'Confidence', 'Sign-off'])
+    // the sensitivity of the optimum: one row per item with the values actually used (the optimiser's answer)
+    const sens = sheetRows(wb, 'Sensitivity of the optimum')
+    const entries = (optimum as unknown as { result: { sensitivity: { label: string; lowValue: number; highValue: number; low: { tac: number } }[] } }).result.sensitivity
+    expect(entries.length).toBeGreaterThan(0)
+    expect(await pdfText(await reportOf(studyId))).toContain('Sensitivity of the optimum')
+    for (const e of entries) {
+      const row = sens.find((r) => r.getCell(1).value === e.label)
+      expect(row, e.label).toBeDefined()
+      expect(row!.getCell(4).value).toBe(e.lowValue)
+      expect(row!.getCell(7).value).toBe(e.highValue)
+      expect(row!.getCell(6).value).toBe(e.low.tac)
+    }
     const summary = sheetRows(wb, 'Design summary')
     expect(cells(summary[0])).toEqual(['Group', 'Quantity', 'Value', 'Unit', 'Key'])
     const dia = summary.find((r) => r.getCell(5).value === 'selectedDiameter')!

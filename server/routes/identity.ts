@@ -75,7 +75,7 @@ export function identityRoutes(router: Router, cfg: Config): Router {
     {
       method: 'post', path: '/auth/password', access: { kind: 'signedIn' }, summary: 'Change own password (current and new; throttled like sign-in; other sessions end)',
       status: 200,
-      doc: { body: changePasswordBody },
+      doc: { body: changePasswordBody, response: signInAnswer },
       handler: async (req, res) => {
         const body = parse(changePasswordBody, req.body)
         const session = await changePassword(req.user!.id, body, req.requestId, { address: req.ip ?? req.socket.remoteAddress ?? 'unknown', limits })

@@ -281,7 +281,7 @@ export async function buildReport(siteId: number, studyId: number, reader: { nam
     review: events.map((e) => ({ kind: e.kind, who: who.get(e.userId) ?? `user ${e.userId}`, at: e.createdAt, body: e.body })),
     // The report's own vessel caution stands for the engine's wordings of the same warning.
     cautions: [VESSEL_CAUTION, ...new Set(cautions.filter((c) => c !== VESSEL_CAUTION)), REPORT_CAUTION],
-    confidence: design ? await studyConfidence(siteId, designRun ? designRun.inputs : s.inputs, inForce?.data as CostBasisData | undefined) : null,
+    confidence: design ? await studyConfidence(siteId, designRun ? designRun.inputs : s.inputs, inForce?.data as CostBasisData | undefined, u) : null,
   }
 }
 

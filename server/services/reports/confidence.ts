@@ -16,6 +16,8 @@ import { loadPreset, DEFAULT_PRESET } from '../../engine/costing/index.ts'
 import { caseFromRequest } from '../engine-gateway.ts'
 import { siteLibrary } from '../runs.ts'
 import { AppError } from '../../errors.ts'
+import { DisplayUnits } from './units.ts'
+import type { QuantityKind } from '../../../shared/units.ts'
 
 export interface ConfidenceSection {
   samples: number
@@ -41,12 +43,13 @@ export interface ConfidenceSection {
 const pc = (x: number, d = 1) => `${(100 * x).toFixed(d)} %`
 
 /** The section from an uncertainty answer (pure). */
-export function sectionOf(r: UncertaintyResult, basisNote: string): ConfidenceSection {
+export function sectionOf(r: UncertaintyResult, basisNote: string, u: DisplayUnits = new DisplayUnits('SI')): ConfidenceSection {
+  const q = (kind: QuantityKind, v: number, unit: string, digits: number) => `${Number(u.from(kind, v, unit).toFixed(digits))} ${u.unit(kind)}`
   return {
     samples: r.samples,
     seed: r.seed,
     basisNote,
-    target: r.target.kind === 'emissionLimit' ? `release at or below ${r.target.emissionLimit} kg/h` : `recovery at or above ${pc(r.target.recovery, 2)}`,
+    target: r.target.kind === 'emissionLimit' ? `release at or below ${q('massFlow', r.target.emissionLimit ?? 0, 'kg/h', 3)}` : `recovery at or above ${pc(r.target.recovery, 2)}`,
     probabilityMeetsTarget: r.probabilityMeetsTarget,
     standardError: r.samplingError.probabilityMeetsTarget.standardError,
     low95: r.samplingError.probabilityMeetsTarget.low95,
@@ -56,7 +59,7 @@ export function sectionOf(r: UncertaintyResult, basisNote: string): ConfidenceSe
     percentFlood: r.percentFlood,
     totalAnnualCost: r.totalAnnualCost,
     currency: r.currency,
-    column: `${r.design.actualTrays} trays, ${r.design.selectedDiameter.toFixed(2)} m diameter, ${r.design.traySpacing.toFixed(2)} m spacing, solvent ${r.design.solventFlow.toFixed(1)} kmol/h held; at nominal values ${pc(r.design.nominalRecovery, 2)} recovery at ${r.design.nominalPercentFlood.toFixed(0)} % of flood`,
+    column: `${r.design.actualTrays} trays, ${q('length', r.design.selectedDiameter, 'm', 2)} diameter, ${q('length', r.design.traySpacing, 'm', 2)} spacing, solvent ${q('molarFlow', r.design.solventFlow, 'kmol/h', 1)} held; at nominal values ${pc(r.design.nominalRecovery, 2)} recovery at ${r.design.nominalPercentFlood.toFixed(0)} % of flood`,
     assumptions: r.assumptions.map((a) => {
       const d = a.distribution
       const what = d.distribution === 'lognormal' ? `lognormal multiplier, median ${d.median}, sigma of ln ${d.sigma}`
@@ -76,13 +79,13 @@ export function sectionOf(r: UncertaintyResult, basisNote: string): ConfidenceSe
  * The section for a study's inputs, with the default distributions and the cost basis in force
  * (or the demo basis); null when the inputs do not give a design (the report says why elsewhere).
  */
-export async function studyConfidence(siteId: number, inputs: unknown, basis: CostBasisData | null | undefined): Promise<ConfidenceSection | null> {
+export async function studyConfidence(siteId: number, inputs: unknown, basis: CostBasisData | null | undefined, u?: DisplayUnits): Promise<ConfidenceSection | null> {
   try {
     const c = caseFromRequest(inputs, await siteLibrary(siteId), 'inputs')
     const spec = uncertaintySpecSchema.parse({ samples: 10000, seed: 1 })
     const b = basis ?? loadPreset(DEFAULT_PRESET)
     const note = basis ? 'priced with the cost basis in force' : 'no published cost basis: priced with the demo cost basis'
-    return sectionOf(propagate({ c, basis: b, spec }), note)
+    return sectionOf(propagate({ c, basis: b, spec }), note, u)
   } catch (e) {
     if (isEngineError(e) || e instanceof AppError) return null
     throw e

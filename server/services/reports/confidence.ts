@@ -169,5 +169,9 @@ export function confidenceSheet(wb: ExcelJS.Workbook, s: ConfidenceSection): voi
     ['Cost basis', s.basisNote, ''],
     ['Caution', s.caution, ''],
   ]
-  for (const [q, v, u] of rows) ws.addRow({ q, v, u })
+  for (const [q, v, u] of rows) {
+    const row = ws.addRow({ q, v, u })
+    // full precision kept; shown with a display format like every number of the workbook
+    if (typeof v === 'number') row.getCell(2).numFmt = Number.isInteger(v) ? '#,##0' : '#,##0.0000'
+  }
 }

@@ -331,7 +331,8 @@ describe('study report (PDF): what a practitioner reads', () => {
 
   it('carries the cost-basis version and the sign-off history', async () => {
     const text = await pdfText(await reportOf(trackedId))
-    expect(text).toMatch(/cost basis version 1 \(design run #\d+\)/)
+    // another test file may publish a newer version of the site's basis meanwhile: the version the run was priced with is named
+    expect(text).toMatch(/cost basis version \d+ \(design run #\d+\)/)
     expect(text).toContain('Sign-off history')
     expect(text).toMatch(/Submitted for review Nora Castellanos/)
     expect(text).toMatch(/Approved Ravi Brandt/)

@@ -132,6 +132,8 @@ describe('cost basis in real units', () => {
     await shot(p, 'units-cost-basis-us-390')
 
     await p.setViewportSize({ width: 1440, height: 900 })
+    // the phone row (with its own unit switch) goes once the layout has seen the wider window
+    await p.getByTestId('phone-bar').waitFor({ state: 'detached' })
     await p.getByTestId('unit-switch').getByRole('button', { name: 'SI' }).click()
     await textMatches(solvent, (t) => /\/m³/.test(t), 'back to per m³')
     await expect(solvent.locator('input').inputValue()).resolves.toBe(String(perM3))

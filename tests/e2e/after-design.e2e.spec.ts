@@ -5,7 +5,7 @@
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import type { APIRequestContext, Page } from 'playwright-core'
-import { baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
+import { siteIdOf, apiSignOut, apiSignIn, tag, api, baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
 
 let s: BrowserSession
 
@@ -15,27 +15,6 @@ beforeEach(async () => {
 afterEach(async () => {
   await s.close()
 })
-
-const api = (path: string) => `${baseUrl}/api/v1${path}`
-const tag = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1296).toString(36)}`
-
-async function apiSignIn(r: APIRequestContext, who: DemoPerson): Promise<void> {
-  const res = await r.post(api('/auth/login'), { data: { email: DEMO_EMAILS[who], password: DEMO_PASSWORD } })
-  expect(res.ok()).toBe(true)
-}
-
-/** Sign out of the API session and drop the cookies so the browser can sign in as someone else. */
-async function apiSignOut(p: Page): Promise<void> {
-  await p.request.post(api('/auth/logout'))
-  await p.context().clearCookies()
-}
-
-async function siteIdOf(r: APIRequestContext, code: string): Promise<number> {
-  const sites = (await (await r.get(api('/sites'))).json()) as { id: number; code: string }[]
-  const id = sites.find((x) => x.code === code)?.id
-  expect(id).toBeDefined()
-  return id as number
-}
 
 /** A Cobalt Ridge fermenter-vent study with a design run and, when asked, that design pinned. */
 async function designedStudy(r: APIRequestContext, siteId: number, name: string, opts: { pin?: boolean; gasFlow?: number } = {}): Promise<{ id: number; optionId: number | null }> {

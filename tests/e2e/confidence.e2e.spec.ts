@@ -4,10 +4,9 @@
  * robust optimum beside the nominal one; SI, US customary and a phone-width screen.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, signIn, type BrowserSession } from './support.ts'
+import { api, baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, signIn, type BrowserSession } from './support.ts'
 
 let s: BrowserSession
-const api = (path: string) => `${baseUrl}/api/v1${path}`
 
 beforeAll(async () => {
   s = await openBrowser()

@@ -8,7 +8,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import { mkdirSync } from 'node:fs'
 import path from 'node:path'
 import type { Page } from 'playwright-core'
-import { baseUrl, openBrowser, screenshotDir, signIn, type BrowserSession } from './support.ts'
+import { tag, api, baseUrl, openBrowser, screenshotDir, signIn, type BrowserSession } from './support.ts'
 
 let s: BrowserSession
 
@@ -18,9 +18,6 @@ beforeEach(async () => {
 afterEach(async () => {
   await s.close()
 })
-
-const api = (p: string) => `${baseUrl}/api/v1${p}`
-const tag = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1296).toString(36)}`
 
 /** A study of its own with a design and an optimisation, both pinned as options (API, as the signed-in engineer). */
 async function studyWithOptions(page: Page): Promise<{ siteId: number; studyId: number; options: number[] }> {

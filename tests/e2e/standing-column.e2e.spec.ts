@@ -4,8 +4,8 @@
  * log's monitoring (efficiency drift, cost-gap split). The study is prepared through the API.
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
-import type { APIRequestContext, Page } from 'playwright-core'
-import { baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
+import type { Page } from 'playwright-core'
+import { apiSignOut, apiSignIn, tag, api, baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
 
 let s: BrowserSession
 beforeEach(async () => {
@@ -14,18 +14,6 @@ beforeEach(async () => {
 afterEach(async () => {
   await s.close()
 })
-
-const api = (path: string) => `${baseUrl}/api/v1${path}`
-const tag = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1296).toString(36)}`
-
-async function apiSignIn(r: APIRequestContext, who: DemoPerson): Promise<void> {
-  const res = await r.post(api('/auth/login'), { data: { email: DEMO_EMAILS[who], password: DEMO_PASSWORD } })
-  expect(res.ok()).toBe(true)
-}
-async function apiSignOut(p: Page): Promise<void> {
-  await p.request.post(api('/auth/logout'))
-  await p.context().clearCookies()
-}
 
 /** An approved Cobalt Ridge study with four logged months (the last three with a low recovery). */
 async function approvedWithLog(p: Page): Promise<{ siteId: number; id: number }> {

@@ -1,4 +1,5 @@
-import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import { expect } from 'vitest'
+import { chromium, type APIRequestContext, type BrowserContext, type Page } from 'playwright-core'
 import { mkdtempSync, mkdirSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
@@ -76,4 +77,30 @@ export async function shot(page: Page, name: string): Promise<string> {
   const file = path.join(screenshotDir, `${name}.png`)
   await page.screenshot({ path: file, fullPage: true })
   return file
+}
+
+/** A path of the app's API under test. */
+export const api = (p: string) => `${baseUrl}/api/v1${p}`
+
+/** A short random tag that keeps names one run creates apart from another run's. */
+export const tag = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1296).toString(36)}`
+
+/** Sign in an API request context (and so the page it belongs to) as a demo person. */
+export async function apiSignIn(r: APIRequestContext, who: DemoPerson): Promise<void> {
+  const res = await r.post(api('/auth/login'), { data: { email: DEMO_EMAILS[who], password: DEMO_PASSWORD } })
+  expect(res.ok()).toBe(true)
+}
+
+/** Sign out of the API session and drop the cookies so the browser can sign in as someone else. */
+export async function apiSignOut(p: Page): Promise<void> {
+  await p.request.post(api('/auth/logout'))
+  await p.context().clearCookies()
+}
+
+/** The id of a demo site by its code. */
+export async function siteIdOf(r: APIRequestContext, code: string): Promise<number> {
+  const sites = (await (await r.get(api('/sites'))).json()) as { id: number; code: string }[]
+  const id = sites.find((x) => x.code === code)?.id
+  expect(id).toBeDefined()
+  return id as number
 }

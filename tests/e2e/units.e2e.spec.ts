@@ -5,7 +5,7 @@
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import type { APIRequestContext, Locator, Page } from 'playwright-core'
-import { baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
+import { tag, api, baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
 
 let s: BrowserSession
 
@@ -17,9 +17,6 @@ afterEach(async () => {
   await s.page.request.patch(api('/auth/me'), { data: { unitSystem: 'SI' } }).catch(() => undefined)
   await s.close()
 })
-
-const api = (path: string) => `${baseUrl}/api/v1${path}`
-const tag = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1296).toString(36)}`
 
 /** Sign in through the API; the browser context shares the cookie, so the app is signed in too. */
 async function signInAs(p: Page, who: DemoPerson): Promise<number> {

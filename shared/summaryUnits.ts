@@ -10,6 +10,7 @@
  * m^3/s) are SI in both.
  */
 import type { DesignResult, DesignSummary } from './schemas/results.ts'
+import type { RobustResult, UncertaintyResult } from './schemas/uncertainty.ts'
 import { fromSI, toSI, type QuantityKind } from './units.ts'
 
 declare const inSI: unique symbol
@@ -60,4 +61,34 @@ export function summaryToSI(s: DesignSummary): DesignSummarySI {
 /** The engine's design result in the public units: only the summary changes (a new object, same key order). */
 export function designToPublic(d: DesignResultSI): DesignResult {
   return { ...d, summary: summaryToPublic(d.summary) }
+}
+
+/**
+ * The engine's uncertainty answer: the public shape with the design's solvent flow in mol/s. The
+ * brand keeps it from being sent without `uncertaintyToPublic`.
+ */
+export type UncertaintyResultSI = UncertaintyResult & { readonly [inSI]: true }
+
+/** The engine's robust optimum: the public shape with its solvent flows in mol/s. */
+export type RobustResultSI = RobustResult & { readonly [inSI]: true }
+
+/** Mark an engine answer built with SI flows as such (type only). */
+export function markSI<T extends UncertaintyResult | RobustResult>(r: T): T & { readonly [inSI]: true } {
+  return r as T & { readonly [inSI]: true }
+}
+
+/** The uncertainty answer in the public units (solvent flow in kmol/h; a new object). */
+export function uncertaintyToPublic(r: UncertaintyResultSI): UncertaintyResult {
+  return { ...r, design: { ...r.design, solventFlow: fromSI('molarFlow', r.design.solventFlow) } }
+}
+
+/** The robust optimum in the public units (solvent flows in kmol/h; a new object). */
+export function robustToPublic(r: RobustResultSI): RobustResult {
+  const kmolh = (x: number) => fromSI('molarFlow', x)
+  return {
+    ...r,
+    nominal: { ...r.nominal, solventFlow: kmolh(r.nominal.solventFlow) },
+    robust: r.robust ? { ...r.robust, solventFlow: kmolh(r.robust.solventFlow) } : r.robust,
+    margin: r.margin ? { ...r.margin, extraSolventFlow: kmolh(r.margin.extraSolventFlow) } : r.margin,
+  }
 }

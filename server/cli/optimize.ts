@@ -17,6 +17,7 @@ import type { OptimiseResult } from '../engine/optimisation/index.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import { readCaseFile, costBasisFrom, searchFrom, isObject } from './input.ts'
 import { robustOptimum } from '../engine/uncertainty/robust.ts'
+import { robustToPublic } from '../../shared/summaryUnits.ts'
 import { invalidFromZod } from '../engine/index.ts'
 import { robustSpecSchema } from '../../shared/schemas/uncertainty.ts'
 
@@ -64,7 +65,7 @@ export function runOptimizeFile(raw: unknown, opts: { sensitivity?: boolean } = 
   const r = robustSpecSchema.safeParse(raw.robust)
   if (!r.success) throw invalidFromZod(r.error, 'robust.')
   const res = optimise(c, basis, search)
-  return { ...optimizeOutput(res, basis), robust: robustOptimum(c, basis, search, res, r.data) }
+  return { ...optimizeOutput(res, basis), robust: robustToPublic(robustOptimum(c, basis, search, res, r.data)) }
 }
 
 /** Run the command; returns the exit code. */

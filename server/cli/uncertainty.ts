@@ -14,6 +14,7 @@ import { reportCliError } from './errors.ts'
 import { caseToSI, InvalidInputError } from '../engine/index.ts'
 import { parseUncertainty, uncertaintySI } from '../engine/uncertainty/index.ts'
 import type { UncertaintyResult } from '../../shared/schemas/uncertainty.ts'
+import { uncertaintyToPublic } from '../../shared/summaryUnits.ts'
 import { readCaseFile, costBasisFrom, searchFrom, isObject } from './input.ts'
 
 /** Parse an uncertainty file and propagate. */
@@ -26,7 +27,7 @@ export function runUncertaintyFile(raw: unknown): UncertaintyResult {
   const c = caseToSI(raw.case, undefined, 'case.')
   const basis = costBasisFrom(raw.costBasis)
   const search = searchFrom(raw.search)
-  return uncertaintySI(c, basis, parseUncertainty(raw.uncertainty), search.emissionLimit)
+  return uncertaintyToPublic(uncertaintySI(c, basis, parseUncertainty(raw.uncertainty), search.emissionLimit))
 }
 
 /** Run the command; returns the exit code. */

@@ -10,7 +10,8 @@ import { optimiseAsync, uncertaintyAsync } from './optimise-pool.ts'
 import type { RobustSpec, UncertaintySpec } from '../../shared/schemas/uncertainty.ts'
 import type { DesignResult as EngineDesign } from '../engine/contract.ts'
 import type { DesignResult } from '../../shared/schemas/results.ts'
-import { designToPublic } from '../../shared/summaryUnits.ts'
+import { designToPublic, robustToPublic, uncertaintyToPublic, type RobustResultSI } from '../../shared/summaryUnits.ts'
+import type { RobustResult } from '../../shared/schemas/uncertainty.ts'
 import { ValidationError, InfeasibleError, zodDetails } from '../errors.ts'
 import { rateCaseToSI, rateSI } from '../engine/rating/rate.ts'
 import type { WindowOptions } from '../engine/rating/window.ts'
@@ -81,7 +82,7 @@ export function parseSearch(raw: unknown, prefix: string): SearchSpec {
 export type PricedDesign = DesignResult & { totalAnnualCost?: number; costBreakdown?: unknown }
 
 /** An optimisation answer in the public units: the optimum's design summary converted. */
-export type PublicOptimiseResult = Omit<OptimiseResult, 'optimum'> & { optimum: Omit<OptimiseResult['optimum'], 'design'> & { design: DesignResult } }
+export type PublicOptimiseResult = Omit<OptimiseResult, 'optimum'> & { optimum: Omit<OptimiseResult['optimum'], 'design'> & { design: DesignResult }; robust?: RobustResult }
 
 /**
  * The engine's answers in the public units. The engine is SI throughout, its design summary
@@ -94,8 +95,10 @@ export function publicDesign(d: EngineDesign, priced?: { totalAnnualCost: number
   return out
 }
 
-export function publicOptimisation(r: OptimiseResult): PublicOptimiseResult {
-  return { ...r, optimum: { ...r.optimum, design: designToPublic(r.optimum.design) } }
+export function publicOptimisation(r: OptimiseResult & { robust?: RobustResultSI }): PublicOptimiseResult {
+  const out: PublicOptimiseResult = { ...r, optimum: { ...r.optimum, design: designToPublic(r.optimum.design) } }
+  if (r.robust) out.robust = robustToPublic(r.robust)
+  return out
 }
 
 export function runDesign(c: CaseSI, basis: CostBasisData | null, prefix = 'body'): PricedDesign {
@@ -127,7 +130,7 @@ export async function runOptimiseAsync(c: CaseSI, basis: CostBasisData, search: 
 /** An uncertainty propagation on a worker thread (and cached): for request handlers. */
 export async function runUncertaintyAsync(c: CaseSI, basis: CostBasisData, spec: UncertaintySpec, emissionLimit: number | undefined, prefix = 'body.case') {
   try {
-    return await uncertaintyAsync(c, basis, spec, emissionLimit)
+    return uncertaintyToPublic(await uncertaintyAsync(c, basis, spec, emissionLimit))
   } catch (e) {
     return toApiError(e, prefix)
   }

@@ -10,7 +10,8 @@ import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { SearchSpec } from '../../shared/schemas/search.ts'
 import type { WorkerError } from '../workers/optimise-worker.ts'
 import { runJob, type EngineJob, type JobResult, type OptimiseAnswer } from '../workers/jobs.ts'
-import type { RobustSpec, UncertaintyResult, UncertaintySpec } from '../../shared/schemas/uncertainty.ts'
+import type { RobustSpec, UncertaintySpec } from '../../shared/schemas/uncertainty.ts'
+import type { UncertaintyResultSI } from '../../shared/summaryUnits.ts'
 
 /**
  * Optimisations run on worker threads (one per core) so that one long optimisation never stalls
@@ -154,8 +155,8 @@ export async function optimiseAsync(c: CaseSI, basis: CostBasisData, search: Sea
 }
 
 /** An uncertainty propagation on a worker (same queue and bound as the optimisations). */
-export async function uncertaintyAsync(c: CaseSI, basis: CostBasisData, spec: UncertaintySpec, emissionLimit?: number): Promise<UncertaintyResult> {
-  return (await runPooled({ kind: 'uncertainty', c, basis, spec, ...(emissionLimit !== undefined ? { emissionLimit } : {}) })) as UncertaintyResult
+export async function uncertaintyAsync(c: CaseSI, basis: CostBasisData, spec: UncertaintySpec, emissionLimit?: number): Promise<UncertaintyResultSI> {
+  return (await runPooled({ kind: 'uncertainty', c, basis, spec, ...(emissionLimit !== undefined ? { emissionLimit } : {}) })) as UncertaintyResultSI
 }
 
 /** Hands waiting jobs to idle workers. */

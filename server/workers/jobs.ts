@@ -8,14 +8,16 @@ import { propagate, robustOptimum } from '../engine/uncertainty/index.ts'
 import type { CaseSI } from '../engine/case.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { SearchSpec } from '../../shared/schemas/search.ts'
-import type { RobustResult, RobustSpec, UncertaintyResult, UncertaintySpec } from '../../shared/schemas/uncertainty.ts'
+import type { RobustSpec, UncertaintySpec } from '../../shared/schemas/uncertainty.ts'
+import type { RobustResultSI, UncertaintyResultSI } from '../../shared/summaryUnits.ts'
 
 export type EngineJob =
   | { kind?: 'optimise'; c: CaseSI; basis: CostBasisData; search: SearchSpec; robust?: RobustSpec }
   | { kind: 'uncertainty'; c: CaseSI; basis: CostBasisData; spec: UncertaintySpec; emissionLimit?: number }
 
-export type OptimiseAnswer = OptimiseResult & { robust?: RobustResult }
-export type JobResult = OptimiseAnswer | UncertaintyResult
+/** Answers in SI (flows in mol/s); the engine gateway converts them for the public. */
+export type OptimiseAnswer = OptimiseResult & { robust?: RobustResultSI }
+export type JobResult = OptimiseAnswer | UncertaintyResultSI
 
 export function runJob(job: EngineJob): JobResult {
   if (job.kind === 'uncertainty') return propagate({ c: job.c, basis: job.basis, spec: job.spec, emissionLimit: job.emissionLimit })

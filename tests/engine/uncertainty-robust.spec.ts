@@ -19,6 +19,7 @@ import { robustSpecSchema } from '../../shared/schemas/uncertainty.ts'
 import { runOptimizeFile } from '../../server/cli/optimize.ts'
 import { runUncertaintyFile } from '../../server/cli/uncertainty.ts'
 import { InvalidInputError } from '../../server/engine/errors.ts'
+import { robustToPublic } from '../../shared/summaryUnits.ts'
 
 const ex = JSON.parse(readFileSync('data/examples/optimize.json', 'utf8')) as { case: Record<string, unknown>; search: Record<string, unknown> }
 const basis = loadPreset('halvard-cobalt-ridge')
@@ -36,6 +37,12 @@ describe('robust optimum', () => {
     expect(r.nominal.totalAnnualCost).toBe(nominal.optimum.totalAnnualCost)
     expect(optimise(c, basis, search).optimum).toEqual(nominal.optimum)
     expect(r.margin!.extraTrays).toBe(r.robust!.actualTrays - nominal.optimum.actualTrays)
+    // SI inside the engine (mol/s); the edge converts to kmol/h (1 kmol/h = 1000/3600 mol/s, exact)
+    expect(r.nominal.solventFlow).toBeCloseTo(nominal.optimum.design.summary.solventFlow, 12)
+    const pub = robustToPublic(r)
+    expect(pub.nominal.solventFlow).toBeCloseTo((r.nominal.solventFlow * 3600) / 1000, 9)
+    expect(pub.robust!.solventFlow).toBeCloseTo((r.robust!.solventFlow * 3600) / 1000, 9)
+    expect(pub.margin!.extraSolventFlow).toBeCloseTo((r.margin!.extraSolventFlow * 3600) / 1000, 9)
     // the nominal optimum is designed for the lowest TAC at nominal values: it cannot beat it there
     expect(r.robust!.totalAnnualCost).toBeGreaterThanOrEqual(nominal.optimum.totalAnnualCost - 1e-6)
   })

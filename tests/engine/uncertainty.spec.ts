@@ -16,7 +16,7 @@ import { latinHypercube, samplerOf } from '../../server/engine/uncertainty/distr
 import { normalCdf, normalQuantile, seedRng } from '../../server/engine/uncertainty/random.ts'
 import { proportionError, spreadOf } from '../../server/engine/uncertainty/statistics.ts'
 import { InvalidInputError } from '../../server/engine/errors.ts'
-import { summaryToPublic } from '../../shared/summaryUnits.ts'
+import { summaryToPublic, uncertaintyToPublic } from '../../shared/summaryUnits.ts'
 
 const basis = loadPreset('halvard-cobalt-ridge')
 /** Standard normal CDF from mathjs's erf: an implementation independent of the product's. */
@@ -203,5 +203,18 @@ describe('bad input', () => {
       expect((e as InvalidInputError).path).toBe('uncertainty.K.high')
     }
     expect(() => parseUncertainty({ samples: 5 })).toThrow(InvalidInputError)
+  })
+})
+
+describe('units of the answer', () => {
+  // SI inside the engine: the propagation reports the design's solvent flow in mol/s, and the edge
+  // (shared/summaryUnits.ts) gives kmol/h, the case-file unit (1 kmol/h = 1000/3600 mol/s, exact).
+  it('the engine answers in mol/s; uncertaintyToPublic converts to kmol/h', () => {
+    const c = caseToSI(diluteCase)
+    const r = uncertaintySI(c, basis, parseUncertainty({ samples: 200, seed: 3 }))
+    const d = designSI(c)
+    expect(r.design.solventFlow).toBeCloseTo(d.summary.solventFlow, 12)
+    expect(uncertaintyToPublic(r).design.solventFlow).toBeCloseTo((d.summary.solventFlow * 3600) / 1000, 9)
+    expect(uncertaintyToPublic(r).probabilityMeetsTarget).toBe(r.probabilityMeetsTarget)
   })
 })

@@ -73,6 +73,8 @@ describe('POST /designs/optimize with robust', () => {
     const r = await api().post('/api/v1/designs/optimize').set(await auth()).send(body)
     expect(r.status).toBe(200)
     const rob = robustResultSchema.parse(r.body.robust)
+    // flows in the answer's unit (kmol/h), the same as the nominal optimum's design summary
+    expect(rob.nominal.solventFlow).toBeCloseTo(r.body.optimum.design.summary.solventFlow, 9)
     expect(rob.nominal.totalAnnualCost).toBeCloseTo(r.body.optimum.totalAnnualCost, 6)
     if (rob.found) {
       expect(rob.robust!.probabilityMeetsFloor).toBeGreaterThanOrEqual(0.9)

@@ -2,7 +2,8 @@
  * Uncertainty entry points: parse (zod) the request { case, costBasis?, search?, uncertainty? },
  * normalise the case, propagate. The robust optimum is in ./robust.ts.
  */
-import { uncertaintySpecSchema, type UncertaintyResult, type UncertaintySpec } from '../../../shared/schemas/uncertainty.ts'
+import type { UncertaintyResultSI } from '../../../shared/summaryUnits.ts'
+import { uncertaintySpecSchema, type UncertaintySpec } from '../../../shared/schemas/uncertainty.ts'
 import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
 import type { CaseSI } from '../case.ts'
 import { invalidFromZod } from '../index.ts'
@@ -16,7 +17,7 @@ export function parseUncertainty(raw: unknown, prefix = 'uncertainty.'): Uncerta
 }
 
 /** Propagate a normalised case with a cost basis and a parsed spec. */
-export function uncertaintySI(c: CaseSI, basis: CostBasisData, spec: UncertaintySpec, emissionLimit?: number): UncertaintyResult {
+export function uncertaintySI(c: CaseSI, basis: CostBasisData, spec: UncertaintySpec, emissionLimit?: number): UncertaintyResultSI {
   return propagate({ c, basis, spec, emissionLimit })
 }
 

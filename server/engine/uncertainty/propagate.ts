@@ -13,14 +13,13 @@ import {
   uncertainLabels,
   type Distribution,
   type UncertainKey,
-  type UncertaintyResult,
   type UncertaintySpec,
 } from '../../../shared/schemas/uncertainty.ts'
 import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
+import { markSI, type UncertaintyResultSI } from '../../../shared/summaryUnits.ts'
 import type { CaseSI } from '../case.ts'
 import type { DesignResult } from '../contract.ts'
 import { designSI } from '../design.ts'
-import { fromSI } from '../../../shared/units.ts'
 import { InvalidInputError } from '../errors.ts'
 import { fixColumn, rateSample, scratchOf, type FixedColumn, type SampleMultipliers, type SampleRating } from './column.ts'
 import { latinHypercube, samplerOf } from './distributions.ts'
@@ -171,7 +170,7 @@ const CAUTION =
  * Propagate the uncertainty of a case through its nominal design.
  * @throws InvalidInputError | InfeasibleDesignError (the nominal design) | ConvergenceError
  */
-export function propagate(input: PropagateInput): UncertaintyResult {
+export function propagate(input: PropagateInput): UncertaintyResultSI {
   const t0 = performance.now()
   const { c, basis, spec } = input
   const design = input.design ?? designSI(c, undefined, { profile: false, detail: false })
@@ -205,7 +204,7 @@ export function propagate(input: PropagateInput): UncertaintyResult {
   if (out.beyondFlooding > 0) warnings.push({ code: 'beyondFloodingCorrelation', message: `${out.beyondFlooding} of ${n} samples load the trays beyond the flooding correlation; they count as flooding`, path: 'uncertainty' })
   const ms = performance.now() - t0
   const s = design.summary
-  return {
+  return markSI({
     samples: n,
     seed: set.seed,
     target: { ...target },
@@ -213,7 +212,7 @@ export function propagate(input: PropagateInput): UncertaintyResult {
       actualTrays: s.actualTrays,
       selectedDiameter: s.selectedDiameter,
       traySpacing: s.traySpacing,
-      solventFlow: fromSI('molarFlow', s.solventFlow), // kmol/h in the answer
+      solventFlow: s.solventFlow, // mol/s (kmol/h at the edge: uncertaintyToPublic)
       designRecovery: c.recovery,
       nominalRecovery: nominal.recovery,
       nominalPercentFlood: Number.isFinite(nominal.percentFlood) ? nominal.percentFlood : 0,
@@ -238,5 +237,5 @@ export function propagate(input: PropagateInput): UncertaintyResult {
     stats: { ms, msPerSample: ms / n },
     warnings,
     cautions: [...new Set([CAUTION, ...design.cautions])],
-  }
+  })
 }

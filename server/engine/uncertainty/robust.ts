@@ -16,12 +16,12 @@
  */
 import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
 import type { SearchSpec } from '../../../shared/schemas/search.ts'
-import type { RobustResult, RobustSpec } from '../../../shared/schemas/uncertainty.ts'
+import type { RobustSpec } from '../../../shared/schemas/uncertainty.ts'
+import { markSI, type RobustResultSI } from '../../../shared/summaryUnits.ts'
 import { uncertaintySpecSchema } from '../../../shared/schemas/uncertainty.ts'
 import type { CaseSI } from '../case.ts'
 import type { DesignResult } from '../contract.ts'
 import { designSI } from '../design.ts'
-import { fromSI } from '../../../shared/units.ts'
 import { Evaluator, toR, toU, type OptimiseResult } from '../optimisation/evaluator.ts'
 import { recoveryBounds, soluteInKgPerHour } from '../optimisation/driver.ts'
 import { fixColumn } from './column.ts'
@@ -57,7 +57,7 @@ function judge(c: CaseSI, basis: CostBasisData, design: DesignResult, set: Sampl
  * The robust optimum beside a nominal optimum of the same case, basis and search.
  * Never throws for a confidence that cannot be met: the answer says so (`found: false`).
  */
-export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpec, nominal: OptimiseResult, robust: RobustSpec): RobustResult {
+export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpec, nominal: OptimiseResult, robust: RobustSpec): RobustResultSI {
   const t0 = performance.now()
   const spec = robust.uncertainty ?? uncertaintySpecSchema.parse({})
   const [rLo, rHi] = recoveryBounds(search, soluteInKgPerHour(c))
@@ -143,7 +143,7 @@ export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpe
     solventFactor: o.solventFactor,
     actualTrays: o.actualTrays,
     selectedDiameter: o.selectedDiameter,
-    solventFlow: fromSI('molarFlow', ns.solventFlow), // kmol/h in the answer
+    solventFlow: ns.solventFlow, // mol/s (kmol/h at the edge: robustToPublic)
     totalAnnualCost: o.totalAnnualCost,
     expectedTotalAnnualCost: nomFull.expectedTac,
     probabilityMeetsFloor: nomFull.p,
@@ -159,18 +159,18 @@ export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpe
     candidates: seen.size,
   }
   if (!winner) {
-    return {
+    return markSI({
       ...base,
       found: false,
       reason: `No design within the search bounds reaches a ${(100 * robust.confidence).toFixed(1)} % chance of meeting the floor (recovery ${rLo.toFixed(4)}) with the tray spacing and fraction of flood of the nominal optimum; widen the recovery or solvent-factor bounds, or lower the confidence.`,
       robust: null,
       margin: null,
       ms: performance.now() - t0,
-    }
+    })
   }
   const ws = winner.design.summary
   const wTac = ev.evaluate({ u: winner.u, s: winner.s, f: o.floodFraction, t: tIndex }, basis).tac
-  return {
+  return markSI({
     ...base,
     found: true,
     robust: {
@@ -180,7 +180,7 @@ export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpe
       floodFraction: o.floodFraction,
       actualTrays: ws.actualTrays,
       selectedDiameter: ws.selectedDiameter,
-      solventFlow: fromSI('molarFlow', ws.solventFlow),
+      solventFlow: ws.solventFlow,
       totalAnnualCost: wTac,
       expectedTotalAnnualCost: winner.tacFull,
       probabilityMeetsFloor: winner.pFull,
@@ -188,11 +188,11 @@ export function robustOptimum(c: CaseSI, basis: CostBasisData, search: SearchSpe
     },
     margin: {
       extraTrays: ws.actualTrays - o.actualTrays,
-      extraSolventFlow: fromSI('molarFlow', ws.solventFlow - ns.solventFlow),
+      extraSolventFlow: ws.solventFlow - ns.solventFlow,
       extraSolventFraction: ws.solventFlow / ns.solventFlow - 1,
       extraTotalAnnualCost: wTac - o.totalAnnualCost,
       extraExpectedTotalAnnualCost: winner.tacFull - nomFull.expectedTac,
     },
     ms: performance.now() - t0,
-  }
+  })
 }

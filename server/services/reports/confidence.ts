@@ -11,6 +11,7 @@ import type ExcelJS from 'exceljs'
 import type { CostBasisData } from '../../../shared/schemas/costBasis.ts'
 import { uncertaintySpecSchema, type Spread, type UncertaintyResult } from '../../../shared/schemas/uncertainty.ts'
 import { propagate } from '../../engine/uncertainty/index.ts'
+import { uncertaintyToPublic } from '../../../shared/summaryUnits.ts'
 import { isEngineError } from '../../engine/errors.ts'
 import { loadPreset, DEFAULT_PRESET } from '../../engine/costing/index.ts'
 import { caseFromRequest } from '../engine-gateway.ts'
@@ -85,7 +86,7 @@ export async function studyConfidence(siteId: number, inputs: unknown, basis: Co
     const spec = uncertaintySpecSchema.parse({ samples: 10000, seed: 1 })
     const b = basis ?? loadPreset(DEFAULT_PRESET)
     const note = basis ? 'priced with the cost basis in force' : 'no published cost basis: priced with the demo cost basis'
-    return sectionOf(propagate({ c, basis: b, spec }), note, u)
+    return sectionOf(uncertaintyToPublic(propagate({ c, basis: b, spec })), note, u)
   } catch (e) {
     if (isEngineError(e) || e instanceof AppError) return null
     throw e

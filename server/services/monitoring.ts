@@ -11,10 +11,10 @@ import { summaryToSI } from '../../shared/summaryUnits.ts'
 import { costDesign, type CostBreakdown } from '../engine/costing/index.ts'
 import { daysInMonth, type MonthResult } from '../engine/tracking/operating.ts'
 import { ratingCaseOfDesign } from '../engine/rating/fromDesign.ts'
-import { monitorMonths, splitCostGap, type CostGapSplit, type DriftStatus, type MonthRating } from '../engine/rating/monitoring.ts'
+import { monitorMonths, splitCostGap } from '../engine/rating/monitoring.ts'
+import type { Monitoring } from '../../shared/schemas/rating.ts'
 import { rateCaseToSI, rateSI } from '../engine/rating/rate.ts'
 import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
-import type { OperatingWindow } from '../../shared/schemas/rating.ts'
 import { toApiError } from './engine-gateway.ts'
 
 export const DRIFT_MARGIN = 0.15
@@ -27,13 +27,8 @@ export interface MonitoringEntry {
   inletMoleFraction: number | null
 }
 
-export interface MonitoringView {
-  ratingCase: Record<string, unknown>
-  designPoint: { gasFlow: number; solventFlow: number; recovery: number; overallEfficiency: number }
-  drift: DriftStatus
-  window: OperatingWindow
-  months: (MonthRating & { costGap: CostGapSplit | null })[]
-}
+/** The monitoring answer (shared/schemas/rating.ts). */
+export type MonitoringView = Monitoring
 
 /** The design's month cost (currency) at throughput ratio phi for a month of `days`, priced by `c`. */
 function designMonth(c: CostBreakdown, phi: number, days: number): number {

@@ -6,20 +6,9 @@ import { audit } from './audit.ts'
 import { userNames } from './people.ts'
 import type { AuthUser } from '../types.d.ts'
 import type { Role, StudyStatus } from '../../shared/schemas/common.ts'
-import type { StudyRow, RunRow, OptionRow } from '../../shared/schemas/studies.ts'
+import type { StudyRow, RunRow, OptionRow, StudyPermissions } from '../../shared/schemas/studies.ts'
 import type { DesignSummary } from '../../shared/schemas/results.ts'
 
-/** What the caller may do with a study, for the client to show or hide controls. */
-export interface StudyPermissions {
-  edit: boolean
-  run: boolean
-  pin: boolean
-  submit: boolean
-  review: boolean
-  comment: boolean
-  archive: boolean
-  logOperation: boolean
-}
 
 export const EDITABLE: readonly StudyStatus[] = ['draft', 'returned']
 

@@ -1,6 +1,8 @@
 import { z } from 'zod'
 import { costBasisSchema } from './costBasis.ts'
 import { designSummarySchema, storedRunSchema } from './results.ts'
+import { monitoringSchema, standingColumnSchema } from './rating.ts'
+import { studyPermissionsSchema } from './studies.ts'
 
 /**
  * The answers of the API routes that are not engine answers (those are in results.ts): people,
@@ -67,7 +69,7 @@ export const studyAnswer = studyHeadAnswer.extend({
   inputs: obj,
   runs: z.array(runHeadAnswer),
   options: z.array(optionAnswer),
-  can: z.record(z.string(), z.boolean()),
+  can: studyPermissionsSchema,
 })
 
 export const runComparisonAnswer = obj
@@ -78,11 +80,11 @@ export const notificationAnswer = z.looseObject({ studyId: id, name: z.string(),
 
 export const outboxAnswer = z.looseObject({ captured: z.array(obj), queue: z.array(obj) })
 
-export const operatingLogAnswer = z.looseObject({ entries: z.array(z.looseObject({ id, month: z.string(), gasFlow: z.number(), solventFlow: z.number() })), months: z.array(obj) })
+export const operatingLogAnswer = z.looseObject({ entries: z.array(z.looseObject({ id, month: z.string(), gasFlow: z.number(), solventFlow: z.number() })), months: z.array(obj), monitoring: monitoringSchema.nullable().optional() })
 
 export const operatingEntryAnswer = z.looseObject({ id, month: z.string(), gasFlow: z.number(), solventFlow: z.number(), lockVersion: z.number().int() })
 
-export const standingColumnAnswer = obj
+export const standingColumnAnswer = standingColumnSchema
 
 const csvIssue = z.looseObject({ line: z.number().int().nullable(), column: z.string().nullable(), message: z.string() })
 

@@ -125,3 +125,73 @@ export const windowOptionsSchema = z
   })
   .strict()
 export type WindowOptionsInput = z.infer<typeof windowOptionsSchema>
+
+/**
+ * Monitoring of a standing column in its operating log: each logged month rated with the
+ * as-built column (flows in kmol/h), the drift status and the split of the month's cost gap.
+ * The engine (server/engine/rating/monitoring.ts), the API answer and the client take their
+ * types from these.
+ */
+export const monthRatingSchema = z.object({
+  month: z.string().meta({ description: 'YYYY-MM' }),
+  gasFlow: z.number().meta({ description: 'kmol/h' }),
+  solventFlow: z.number().meta({ description: 'kmol/h' }),
+  inletMoleFraction: z.number(),
+  expectedRecovery: z.number(),
+  measuredRecovery: z.number().nullable(),
+  /** Overall efficiency the column achieved (null without a measurement or when the measurement is beyond any stage count). */
+  achievedEfficiency: z.number().nullable(),
+  designEfficiency: z.number(),
+  belowDriftMargin: z.boolean(),
+  percentFlood: z.number(),
+  insideWindow: z.boolean(),
+  violated: z.array(z.enum(WINDOW_BOUNDARIES)),
+  /** Solvent the design recovery needed at the month's gas with the as-built column [kmol/h]; null when no solvent rate reaches it. */
+  solventNeeded: z.number().nullable(),
+  note: z.string().optional(),
+})
+export type MonthRating = z.infer<typeof monthRatingSchema>
+
+/** A month's cost gap against the approved optimum, split so that the parts add up to the gap (currency). */
+export const costGapSplitSchema = z.object({
+  /** Approved optimum's month cost at design throughput, approval basis. */
+  reference: z.number(),
+  actual: z.number(),
+  gap: z.number(),
+  prices: z.number(),
+  throughput: z.number(),
+  excessSolvent: z.number(),
+  efficiencyLoss: z.number(),
+  other: z.number(),
+})
+export type CostGapSplit = z.infer<typeof costGapSplitSchema>
+
+export const driftStatusSchema = z.object({
+  margin: z.number(),
+  run: z.number().int(),
+  warning: z.boolean(),
+  /** First month of the latest run of months below the margin (when warning). */
+  since: z.string().nullable(),
+  message: z.string().nullable(),
+})
+export type DriftStatus = z.infer<typeof driftStatusSchema>
+
+const designPointSchema = z.object({ gasFlow: z.number(), solventFlow: z.number(), recovery: z.number() })
+
+export const monitoringSchema = z.object({
+  ratingCase: z.record(z.string(), z.unknown()),
+  designPoint: designPointSchema.extend({ overallEfficiency: z.number() }),
+  drift: driftStatusSchema,
+  window: operatingWindowSchema,
+  months: z.array(monthRatingSchema.extend({ costGap: costGapSplitSchema.nullable() })),
+})
+export type Monitoring = z.infer<typeof monitoringSchema>
+
+/** The standing column of an approved study: its rating case, design point, rating and logged months. */
+export const standingColumnSchema = z.object({
+  ratingCase: z.record(z.string(), z.unknown()),
+  designPoint: designPointSchema,
+  rating: ratingResultSchema,
+  months: z.array(z.object({ month: z.string(), gasFlow: z.number(), solventFlow: z.number() })),
+})
+export type StandingColumn = z.infer<typeof standingColumnSchema>

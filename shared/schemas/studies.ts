@@ -47,6 +47,19 @@ export const createOptionBody = z.object({
   notes: z.string().max(2000).default(''),
 })
 
+/** What the caller may do with a study, for the client to show or hide controls. */
+export const studyPermissionsSchema = z.object({
+  edit: z.boolean(),
+  run: z.boolean(),
+  pin: z.boolean(),
+  submit: z.boolean(),
+  review: z.boolean(),
+  comment: z.boolean(),
+  archive: z.boolean(),
+  logOperation: z.boolean(),
+})
+export type StudyPermissions = z.infer<typeof studyPermissionsSchema>
+
 export interface StudyRow {
   id: number
   name: string

@@ -30,8 +30,8 @@ export type EquilibriumModel = CaseInput['equilibrium']['model']
 export type DesignResult = PricedDesign
 export type OptimizeResult = OptimisationResult
 
-export type { StudyRow, RunRow, OptionRow } from '@shared/schemas/studies.ts'
-import type { StudyRow, RunRow, OptionRow } from '@shared/schemas/studies.ts'
+export type { StudyRow, RunRow, OptionRow, StudyPermissions } from '@shared/schemas/studies.ts'
+import type { StudyRow, RunRow, OptionRow, StudyPermissions } from '@shared/schemas/studies.ts'
 
 export interface Paged<T> {
   items: T[]
@@ -46,16 +46,6 @@ export interface RunView extends RunRow {
   result: DesignResult | OptimizeResult | null
 }
 
-export interface StudyPermissions {
-  edit: boolean
-  run: boolean
-  pin: boolean
-  submit: boolean
-  review: boolean
-  comment: boolean
-  archive: boolean
-  logOperation: boolean
-}
 
 export interface StudyView extends StudyRow {
   recommendedOptionId?: number | null

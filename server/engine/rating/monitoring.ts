@@ -27,12 +27,15 @@
  *    so that the parts add up to the gap exactly.
  */
 import type { CaseSI } from '../case.ts'
+import type { CostGapSplit, DriftStatus, MonthRating as MonthRatingAnswer } from '../../../shared/schemas/rating.ts'
 import { outletForStages, stagesForRecovery, type BalanceInput } from './balance.ts'
 import { RATING_LIMITS, worstEnd } from './checks.ts'
 import { balanceOf, endStreams, geometryOf, installedOutlet, type RateCaseSI } from './rate.ts'
 import { trayStateAt } from './trayState.ts'
 
 const KMOLH = 3.6
+
+export type { CostGapSplit, DriftStatus }
 
 export interface MonitorEntry {
   month: string // YYYY-MM
@@ -42,33 +45,8 @@ export interface MonitorEntry {
   measuredRecovery: number | null
 }
 
-export interface MonthRating {
-  month: string
-  gasFlow: number // kmol/h
-  solventFlow: number // kmol/h
-  inletMoleFraction: number
-  expectedRecovery: number
-  measuredRecovery: number | null
-  /** Overall efficiency the column achieved (null without a measurement or when the measurement is beyond any stage count). */
-  achievedEfficiency: number | null
-  designEfficiency: number
-  belowDriftMargin: boolean
-  percentFlood: number
-  insideWindow: boolean
-  violated: ('flooding' | 'entrainment' | 'weeping' | 'downcomerBackup')[]
-  /** Solvent the design recovery needed at the month's gas with the as-built column [kmol/h]; null when no solvent rate reaches it. */
-  solventNeeded: number | null
-  note?: string
-}
-
-export interface DriftStatus {
-  margin: number
-  run: number
-  warning: boolean
-  /** First month of the latest run of months below the margin (when warning). */
-  since: string | null
-  message: string | null
-}
+/** A month rated with the as-built column (flows in kmol/h); the cost gap is added by the service. */
+export type MonthRating = MonthRatingAnswer
 
 /** The as-built rating context of an approved design. */
 export interface MonitorContext {
@@ -189,17 +167,6 @@ export function monitorMonths(ctx: MonitorContext, entries: MonitorEntry[], marg
 }
 
 /** The parts of one month's cost gap (currency); they add up to `gap`. */
-export interface CostGapSplit {
-  reference: number // approved optimum's month cost at design throughput, approval basis
-  actual: number
-  gap: number
-  prices: number
-  throughput: number
-  excessSolvent: number
-  efficiencyLoss: number
-  other: number
-}
-
 export interface CostGapInput {
   actualTotal: number
   /** Design month cost at design throughput priced with the approval basis and with the basis in force; and at the month's throughput (basis in force). */

@@ -41,3 +41,55 @@ export const allocationAbsorberSchema = z.object({
   designFlow: z.number().nullable(),
 })
 export type AllocationAbsorber = z.infer<typeof allocationAbsorberSchema>
+
+export const ALLOCATION_OBJECTIVES = ['minCost', 'maxRecovered'] as const
+export type AllocationObjective = (typeof ALLOCATION_OBJECTIVES)[number]
+
+/** One absorber's share of the supply (flows in m³/h, cost per year in the basis currency, recovered in kg/yr). */
+export const allocationUnitResultSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  flow: z.number(),
+  recovery: z.number(),
+  cost: z.number(),
+  recovered: z.number(),
+  minFlow: z.number(),
+  maxFlow: z.number(),
+  designFlow: z.number(),
+})
+export type AllocationUnitResult = z.infer<typeof allocationUnitResultSchema>
+
+/** The engine's split of a limited supply (server/engine/allocation). */
+export const allocationSplitSchema = z.object({
+  feasible: z.boolean(),
+  objective: z.enum(ALLOCATION_OBJECTIVES),
+  supplyLimit: z.number(),
+  used: z.number(),
+  units: z.array(allocationUnitResultSchema),
+  totalCost: z.number(),
+  totalRecovered: z.number(),
+  /** Value of one more m³/h of solvent supply, per year (0 when the limit does not bind). */
+  shadowPrice: z.number(),
+  curves: z.array(z.object({ id: z.number().int(), points: z.array(z.object({ flow: z.number(), cost: z.number(), recovery: z.number() })) })),
+  warnings: z.array(z.string()),
+})
+export type AllocationSplit = z.infer<typeof allocationSplitSchema>
+
+/** The answer of a solve: the split, priced with the basis in force, and whether it was saved. */
+export const allocationResultSchema = allocationSplitSchema.extend({
+  id: z.number().int().nullable().optional(),
+  /** Whether this answer was saved (an infeasible one is not, unless asked). */
+  saved: z.boolean().optional(),
+  currency: z.string().optional(),
+  costBasisVersion: z.number().int().optional(),
+})
+export type AllocationResult = z.infer<typeof allocationResultSchema>
+
+/** A saved allocation: its request and its answer. */
+export const savedAllocationSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  createdAt: z.string(),
+  inputs: z.looseObject({}),
+  result: allocationResultSchema,
+})

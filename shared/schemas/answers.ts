@@ -3,6 +3,7 @@ import { costBasisSchema } from './costBasis.ts'
 import { designSummarySchema, storedRunSchema } from './results.ts'
 import { monitoringSchema, standingColumnSchema } from './rating.ts'
 import { studyPermissionsSchema } from './studies.ts'
+import { allocationResultSchema, savedAllocationSchema } from './allocation.ts'
 
 /**
  * The answers of the API routes that are not engine answers (those are in results.ts): people,
@@ -100,9 +101,9 @@ export const savedQuotesAnswer = obj
 
 export const fitAnswer = obj
 
-export const allocationAnswer = z.looseObject({ feasible: z.boolean(), units: z.array(obj), currency: z.string() })
+export const allocationAnswer = allocationResultSchema.required({ currency: true })
 
-export const savedAllocationAnswer = z.looseObject({ id, name: z.string() })
+export const savedAllocationAnswer = savedAllocationSchema
 
 /** A case of a batch that was refused: its slot holds the reason, in the API's error words. */
 export const refusedCaseAnswer = z.looseObject({

@@ -1,48 +1,13 @@
 /** Site solvent allocation: split a limited solvent supply between absorbers (m³/h). */
-import type { AllocationAbsorber, AllocationBody } from '@shared/schemas/allocation.ts'
+import type { z } from 'zod'
+import type { AllocationAbsorber, AllocationBody, AllocationObjective, AllocationResult, AllocationUnitResult, savedAllocationSchema } from '@shared/schemas/allocation.ts'
 import { http } from './http.ts'
 
-export type AllocationObjective = 'minCost' | 'maxRecovered'
-
 export type AllocationRequest = Omit<AllocationBody, 'name' | 'objective' | 'save' | 'saveInfeasible'> & { name?: string; objective?: AllocationObjective; save?: boolean; saveInfeasible?: boolean }
-export type { AllocationAbsorber }
+export type { AllocationAbsorber, AllocationObjective, AllocationResult, AllocationUnitResult }
 
-export interface AllocationUnitResult {
-  id: number
-  name: string
-  flow: number
-  recovery: number
-  cost: number
-  recovered: number
-  minFlow: number
-  maxFlow: number
-  designFlow: number
-}
-
-export interface AllocationResult {
-  id?: number | null
-  /** Whether this answer was saved (an infeasible one is not, unless asked). */
-  saved?: boolean
-  feasible: boolean
-  objective: AllocationObjective
-  supplyLimit: number
-  used: number
-  units: AllocationUnitResult[]
-  totalCost: number
-  totalRecovered: number
-  shadowPrice: number
-  curves: { id: number; points: { flow: number; cost: number; recovery: number }[] }[]
-  warnings: string[]
-  currency?: string
-  costBasisVersion?: number
-}
-
-export interface SavedAllocation {
-  id: number
-  name: string
-  createdAt: string
+export interface SavedAllocation extends Omit<z.infer<typeof savedAllocationSchema>, 'inputs'> {
   inputs: AllocationRequest
-  result: AllocationResult
 }
 
 export const allocationApi = {

@@ -17,6 +17,7 @@
  * envelope and reports when a curve was not convex.
  */
 import * as lp from 'javascript-lp-solver'
+import type { AllocationObjective, AllocationSplit } from '../../../shared/schemas/allocation.ts'
 import type { SolverAPI } from 'javascript-lp-solver'
 
 // The package's types describe a CommonJS default; at run time the ES module's default is the solver.
@@ -40,7 +41,7 @@ export interface AllocationUnit {
   designFlow: number // m³/h (for reference)
 }
 
-export type AllocationObjective = 'minCost' | 'maxRecovered'
+export type { AllocationObjective }
 
 /** Kremser fraction absorbed for absorption factor A and N stages (pure lean solvent). */
 export function fractionAbsorbed(A: number, N: number): number {
@@ -94,19 +95,8 @@ function convexPieces(xs: number[], ys: number[]): { pieces: Piece[]; convex: bo
   return { pieces, convex: hull.length === xs.length }
 }
 
-export interface AllocationResult {
-  feasible: boolean
-  objective: AllocationObjective
-  supplyLimit: number
-  used: number
-  units: { id: number; name: string; flow: number; recovery: number; cost: number; recovered: number; minFlow: number; maxFlow: number; designFlow: number }[]
-  totalCost: number
-  totalRecovered: number
-  /** Value of one more m³/h of solvent supply, per year (0 when the limit does not bind). */
-  shadowPrice: number
-  curves: { id: number; points: { flow: number; cost: number; recovery: number }[] }[]
-  warnings: string[]
-}
+/** The split of a limited supply (shared/schemas/allocation.ts). */
+export type AllocationResult = AllocationSplit
 
 const SEGMENTS = 80
 

@@ -8,6 +8,7 @@ import { getStudy } from './studies.ts'
 import { TRANSITIONS, type ReviewEventView, type ReviewKind } from '../../shared/schemas/review.ts'
 import type { AuthUser } from '../types.d.ts'
 import type { StudyStatus } from '../../shared/schemas/common.ts'
+import type { NotificationChange, StudyNotification } from '../../shared/schemas/answers.ts'
 
 export async function thread(siteId: number, studyId: number): Promise<ReviewEventView[]> {
   const s = await Study.findOne({ where: { id: studyId, siteId }, attributes: ['id'] })
@@ -171,8 +172,8 @@ export async function notifications(siteId: number, user: AuthUser) {
     (await User.findAll({ where: { id: [...new Set(runs.map((r) => r.createdBy).filter((x): x is number => x !== null))] }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
   )
   const newestFirst = (a: { at: string }, b: { at: string }) => b.at.localeCompare(a.at)
-  interface Change { at: string; what: string; kind: ReviewKind | 'run' }
-  const out: { studyId: number; name: string; status: StudyStatus; lastSeenAt: string | null; changes: Change[] }[] = []
+  type Change = NotificationChange
+  const out: StudyNotification[] = []
   for (const s of studies) {
     const seen = views.get(s.id) ?? null
     const newer = (d: Date) => seen === null || d > seen

@@ -3,7 +3,9 @@ import { costBasisSchema } from './costBasis.ts'
 import { designSummarySchema, storedRunSchema } from './results.ts'
 import { monitoringSchema, standingColumnSchema } from './rating.ts'
 import { studyPermissionsSchema } from './studies.ts'
+import { studyStatusSchema } from './common.ts'
 import { allocationResultSchema, savedAllocationSchema } from './allocation.ts'
+import { fitResultSchema } from './uploads.ts'
 
 /**
  * The answers of the API routes that are not engine answers (those are in results.ts): people,
@@ -77,9 +79,25 @@ export const runComparisonAnswer = obj
 
 export const commentAnswer = z.looseObject({ id, kind: z.string(), body: z.string(), userId: id.nullable(), createdAt: when })
 
-export const notificationAnswer = z.looseObject({ studyId: id, name: z.string(), status: z.string(), changes: z.array(obj) })
+/** What changed on a study since the person last opened it: review actions first, then new runs. */
+export const notificationAnswer = z.object({
+  studyId: id,
+  name: z.string(),
+  status: studyStatusSchema,
+  lastSeenAt: when.nullable(),
+  changes: z.array(z.object({ at: when, what: z.string().meta({ description: 'a sentence, e.g. "Ada Reyes submitted the study for review"' }), kind: z.enum(['comment', 'submit', 'approve', 'return', 'reopen', 'run']) })),
+})
+export type StudyNotification = z.infer<typeof notificationAnswer>
+export type NotificationChange = StudyNotification['changes'][number]
 
-export const outboxAnswer = z.looseObject({ captured: z.array(obj), queue: z.array(obj) })
+/** Development outbox: mail captured by the local mail server and the delivery queue. */
+export const outboxAnswer = z.object({
+  captured: z.array(z.object({ id, receivedAt: when, from: z.string(), to: z.array(z.string()), subject: z.string(), text: z.string() })),
+  queue: z.array(z.object({ id, to: z.string(), subject: z.string(), status: z.string(), attempts: z.number().int(), lastError: z.string().nullable(), createdAt: when, sentAt: when.nullable() })),
+})
+export type OutboxView = z.infer<typeof outboxAnswer>
+export type CapturedMail = OutboxView['captured'][number]
+export type QueuedMail = OutboxView['queue'][number]
 
 export const operatingLogAnswer = z.looseObject({ entries: z.array(z.looseObject({ id, month: z.string(), gasFlow: z.number(), solventFlow: z.number() })), months: z.array(obj), monitoring: monitoringSchema.nullable().optional() })
 
@@ -99,7 +117,7 @@ export const quoteAnswer = z.looseObject({ id })
 
 export const savedQuotesAnswer = obj
 
-export const fitAnswer = obj
+export const fitAnswer = fitResultSchema
 
 export const allocationAnswer = allocationResultSchema.required({ currency: true })
 

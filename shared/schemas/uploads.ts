@@ -4,6 +4,7 @@
  */
 import { z } from 'zod'
 import { shortText } from './common.ts'
+import { costCurveSchema } from './costBasis.ts'
 
 /** Equipment types a vendor quote may be for: the capital-cost correlation keys of the cost basis. */
 export const EQUIPMENT_TYPES = ['shell', 'platforms', 'trays', 'pump', 'motor', 'blower'] as const
@@ -120,3 +121,53 @@ export interface QuoteView {
   createdByName: string | null
   createdAt: string
 }
+
+/** One vendor quote in a fit: as quoted, escalated to the target index, and the fitted and basis costs at its size. */
+export const fitPointSchema = z.object({
+  quoteId: z.number().int(),
+  size: z.number(),
+  cost: z.number(),
+  costIndex: z.number().nullable(),
+  escalatedCost: z.number(),
+  fitted: z.number(),
+  logResidual: z.number(),
+  relativeError: z.number(),
+  basisCost: z.number(),
+})
+export type FitPoint = z.infer<typeof fitPointSchema>
+
+/** What adopting a fit writes into a draft cost basis. */
+export const fitAdoptSchema = z.object({
+  equipmentType: z.enum(FITTABLE_TYPES),
+  logBase: z.enum(['e', '10']),
+  coefficients: z.array(z.number()),
+  sizeMin: z.number(),
+  sizeMax: z.number(),
+  baseIndex: z.number(),
+  baseYear: z.string(),
+  source: z.string(),
+})
+export type FitAdopt = z.infer<typeof fitAdoptSchema>
+
+/** A cost-curve fit to a site's vendor quotes, beside the basis curve it would replace. */
+export const fitResultSchema = z.object({
+  equipmentType: z.enum(FITTABLE_TYPES),
+  form: z.enum(FIT_FORMS),
+  currency: z.string(),
+  targetIndex: z.number(),
+  sizeUnit: z.string(),
+  logBase: z.enum(['e', '10']),
+  coefficients: z.array(z.number()),
+  r2: z.number(),
+  rmsLogResidual: z.number(),
+  n: z.number().int(),
+  dof: z.number().int(),
+  /** The basis curve as it would read after adopting the fit. */
+  curve: costCurveSchema,
+  adopt: fitAdoptSchema,
+  points: z.array(fitPointSchema),
+  line: z.array(z.object({ size: z.number(), fitted: z.number(), basis: z.number() })),
+  basis: z.object({ costBasisId: z.number().int().nullable(), version: z.number().int().nullable(), preset: z.string().nullable(), curve: costCurveSchema }),
+  warnings: z.array(z.string()),
+})
+export type FitResult = z.infer<typeof fitResultSchema>

@@ -1,23 +1,12 @@
 /** Review of a study (submit, approve, return, revise), its comment thread and site notifications. */
 import type { ReviewEventView } from '@shared/schemas/review.ts'
+import type { NotificationChange, StudyNotification } from '@shared/schemas/answers.ts'
 import { http } from './http.ts'
 import type { StudyView } from './types.ts'
 
 export type { ReviewEventView }
 
-export interface NotificationChange {
-  at: string
-  what: string
-  kind: string
-}
-
-export interface StudyNotification {
-  studyId: number
-  name: string
-  status: string
-  lastSeenAt: string | null
-  changes: NotificationChange[]
-}
+export type { NotificationChange, StudyNotification }
 
 const study = (siteId: number, studyId: number) => `/sites/${siteId}/studies/${studyId}`
 

@@ -6,6 +6,9 @@ import type {
   CsvIssue,
   EquilibriumPreview,
   EquilibriumTableView,
+  FitAdopt,
+  FitPoint,
+  FitResult,
   FittableType,
   QuoteRowInput,
   QuotesPreview,
@@ -14,7 +17,7 @@ import type {
 import { API_BASE, ApiError, http, toApiError } from './http.ts'
 import type { CostBasisVersion } from './types.ts'
 
-export type { CsvIssue, EquilibriumPreview, EquilibriumTableView, FittableType, QuoteRowInput, QuotesPreview, QuoteView }
+export type { CsvIssue, EquilibriumPreview, EquilibriumTableView, FitAdopt, FitPoint, FitResult, FittableType, QuoteRowInput, QuotesPreview, QuoteView }
 
 /** POST one file (and optional text fields) as multipart; JSON answer or an ApiError. */
 export async function postFile<T>(path: string, file: File, fields: Record<string, string | number | undefined> = {}): Promise<T> {
@@ -47,48 +50,6 @@ export function fileIssues(err: unknown): CsvIssue[] {
       const m = /^file:line (\d+)$/.exec(d.path)
       return { line: m ? Number(m[1]) : null, column: null, message: d.message }
     })
-}
-
-export interface FitPoint {
-  quoteId: number
-  size: number
-  cost: number
-  costIndex: number | null
-  escalatedCost: number
-  fitted: number
-  logResidual: number
-  relativeError: number
-  basisCost: number
-}
-
-export interface FitAdopt {
-  equipmentType: FittableType
-  logBase: 'e' | '10'
-  coefficients: number[]
-  sizeMin: number
-  sizeMax: number
-  baseIndex: number
-  baseYear: string
-  source: string
-}
-
-export interface FitResult {
-  equipmentType: FittableType
-  form: 'power' | 'quadraticLog'
-  currency: string
-  targetIndex: number
-  sizeUnit: string
-  logBase: 'e' | '10'
-  coefficients: number[]
-  r2: number
-  rmsLogResidual: number
-  n: number
-  dof: number
-  adopt: FitAdopt
-  points: FitPoint[]
-  line: { size: number; fitted: number; basis: number }[]
-  basis: { costBasisId: number | null; version: number | null; preset: string | null }
-  warnings: string[]
 }
 
 const site = (siteId: number) => `/sites/${siteId}`

@@ -6,7 +6,7 @@ import { basisInForce, getVersion } from '../cost-bases.ts'
 import { costFromCurve, loadPreset, DEFAULT_PRESET } from '../../engine/costing/index.ts'
 import { fitCostCurve, FitError, logSpacedSizes, costFromFit, type FitForm } from '../../engine/fitting/index.ts'
 import { costBasisSchema, type CostBasisData, type CostCurveData } from '../../../shared/schemas/costBasis.ts'
-import type { FittableType } from '../../../shared/schemas/uploads.ts'
+import type { FitResult, FittableType } from '../../../shared/schemas/uploads.ts'
 import type { AuthUser } from '../../types.d.ts'
 
 /** Cost-curve fits to a site's vendor quotes, and adopting a fit into a draft cost basis. */
@@ -31,7 +31,7 @@ function defaultForm(curve: CostCurveData): FitForm {
   return curve.coefficients.length >= 3 && curve.linearCoefficient === 0 ? 'quadraticLog' : 'power'
 }
 
-export async function fitQuotes(siteId: number, body: { equipmentType: FittableType; targetIndex?: number; form?: FitForm; costBasisId?: number }) {
+export async function fitQuotes(siteId: number, body: { equipmentType: FittableType; targetIndex?: number; form?: FitForm; costBasisId?: number }): Promise<FitResult> {
   const basis = await comparisonBasis(siteId, body.costBasisId)
   const curve = basis.data.correlations[body.equipmentType].curve
   const targetIndex = body.targetIndex ?? basis.data.general.targetIndex

@@ -1,5 +1,6 @@
 import { computed, ref, watch } from 'vue'
 import { defaultText, helpText, ruleFor, typicalText, type ShowSystem } from '@shared/schemas/caseRules.ts'
+import { fieldId } from '@/utils/fieldId.ts'
 
 /** Parse typed text: spaces are thousands separators, a decimal comma counts as a point. */
 export function parseNumberText(raw: string): number | null | 'invalid' {
@@ -120,4 +121,49 @@ export function useCaseFieldRule(path: () => string | undefined, hint: () => str
     return d ? `default: ${d}` : undefined
   })
   return { rule, hintText, placeholder }
+}
+
+/** The props both number fields have. */
+export interface NumberFieldProps<M> {
+  modelValue: M | null | undefined
+  label?: string
+  hint?: string
+  errorMessages?: string | string[]
+  /** The case path of the field (rules, help, default, id). */
+  path?: string
+}
+
+/**
+ * A number field: the typing rules (useNumberInput; letters emit NaN only for a case path), what
+ * a case path brings (useCaseFieldRule), and `field`, the props both number fields bind on their
+ * v-text-field. `show` and `toModel` convert between the model and the typed number; `system` is
+ * the person's unit system, null for a field in case units, undefined while units load.
+ */
+export function useNumberField<M>(
+  props: NumberFieldProps<M>,
+  emit: (event: 'update:modelValue', value: number | null) => void,
+  convert: { show: (value: M) => string; toModel: (typed: number) => number | null; system: () => ShowSystem | null | undefined },
+) {
+  const { rule, hintText, placeholder } = useCaseFieldRule(() => props.path, () => props.hint, convert.system)
+  const { text, messages, onInput, sync } = useNumberInput<M>({
+    model: () => props.modelValue,
+    show: convert.show,
+    toModel: convert.toModel,
+    emit: (v) => emit('update:modelValue', v),
+    lettersAsNaN: () => !!props.path,
+    errorMessages: () => props.errorMessages,
+  })
+  const field = computed(() => ({
+    id: props.path ? fieldId(props.path) : undefined,
+    modelValue: text.value,
+    label: props.label ?? rule.value?.label,
+    hint: hintText.value,
+    persistentHint: !!hintText.value,
+    placeholder: placeholder.value,
+    persistentPlaceholder: !!placeholder.value,
+    errorMessages: messages.value,
+    inputmode: 'decimal',
+    class: 'app-number-field',
+  }))
+  return { rule, field, onInput, sync }
 }

@@ -3,22 +3,19 @@
  * server's refusal on the field it names, a message about no field in the banner, and a fresh
  * form each time it opens.
  */
-import { describe, it, expect, afterEach, vi } from 'vitest'
+import { describe, it, expect, afterEach, beforeEach, vi } from 'vitest'
 import { mount, flushPromises, type VueWrapper } from '@vue/test-utils'
 import { nextTick } from 'vue'
 import PeopleCreateSiteDialog from '@/components/people/PeopleCreateSiteDialog.vue'
-import { fakeFetch, testVuetify } from './helpers.ts'
-
-// Vuetify's overlays read the visual viewport, which happy-dom does not provide.
-vi.stubGlobal('visualViewport', { width: 1024, height: 768, offsetLeft: 0, offsetTop: 0, pageLeft: 0, pageTop: 0, scale: 1, addEventListener: () => {}, removeEventListener: () => {} })
+import { fakeFetch, stubVisualViewport, testVuetify } from './helpers.ts'
 
 let wrapper: VueWrapper | null = null
+beforeEach(stubVisualViewport)
 afterEach(() => {
   wrapper?.unmount()
   wrapper = null
   document.body.innerHTML = ''
   vi.unstubAllGlobals()
-  vi.stubGlobal('visualViewport', { width: 1024, height: 768, offsetLeft: 0, offsetTop: 0, pageLeft: 0, pageTop: 0, scale: 1, addEventListener: () => {}, removeEventListener: () => {} })
 })
 
 async function openDialog() {

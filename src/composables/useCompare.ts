@@ -45,5 +45,5 @@ export function useCompare() {
     await req.run(siteId, keys)
   }
 
-  return { items, status: req.status, error: req.error, load }
+  return { items, status: req.status, error: req.error, load, retry: req.retry }
 }

@@ -3,7 +3,7 @@ import { studiesApi } from '@/api/studies.ts'
 import { designsApi } from '@/api/designs.ts'
 import { ApiError, fieldErrors } from '@/api/http.ts'
 import { designOf, isOptimizeResult, type CaseInput, type ComponentEntry, type RunView, type StudyView } from '@/api/types.ts'
-import type { AsyncStatus } from './useAsync.ts'
+import { useAsync } from './useAsync.ts'
 import { searchSpecSchema } from '@shared/schemas/search.ts'
 import { ruleFor, setUnitSystemSource } from '@shared/schemas/caseRules.ts'
 import { useSessionStore } from '@/stores/session.ts'
@@ -40,16 +40,13 @@ export function fieldLabel(path: string): string {
  */
 export function useStudy(siteId: () => number, studyId: () => number) {
   const study = shallowRef<StudyView | null>(null)
-  const status = ref<AsyncStatus>('idle')
-  const error = shallowRef<unknown>(null)
   const draft = ref<CaseInput | null>(null)
   const name = ref('')
   const description = ref('')
   /** The optimiser's search limits (only the fields the engineer set; the rest take defaults). */
   const search = ref<Record<string, unknown>>({})
   const dirty = ref(false)
-  const saving = ref(false)
-  const running = ref<'design' | 'optimize' | null>(null)
+  const runningKind = ref<'design' | 'optimize' | null>(null)
   const actionError = shallowRef<unknown>(null)
   const conflict = ref(false)
   /** Field messages from the server's last answer (cleared when the inputs change). */
@@ -122,44 +119,47 @@ export function useStudy(siteId: () => number, studyId: () => number) {
     }
   }
 
-  async function loadRuns(s: StudyView): Promise<void> {
+  /** The study with its latest design and optimisation runs. */
+  const opening = useAsync(async (site: number, id: number) => {
+    caseMod.value = await (caseModule ??= import('@shared/schemas/case.ts'))
+    const s = await studiesApi.get(site, id)
     const lastDesign = s.runs.find((r) => r.kind === 'design')
     const lastOptimize = s.runs.find((r) => r.kind === 'optimize')
     const [d, o] = await Promise.all([
-      lastDesign ? studiesApi.getRun(siteId(), s.id, lastDesign.id) : Promise.resolve(null),
-      lastOptimize ? studiesApi.getRun(siteId(), s.id, lastOptimize.id) : Promise.resolve(null),
+      lastDesign ? studiesApi.getRun(site, s.id, lastDesign.id) : Promise.resolve(null),
+      lastOptimize ? studiesApi.getRun(site, s.id, lastOptimize.id) : Promise.resolve(null),
     ])
-    designRun.value = d
-    optimizeRun.value = o
-  }
+    return { s, d, o }
+  })
+  const components = useAsync(async () => {
+    const l = await designsApi.components()
+    return Array.isArray(l) ? l : l.items
+  })
 
   async function load(): Promise<void> {
-    status.value = 'loading'
-    error.value = null
     conflict.value = false
     serverErrors.value = {}
-    try {
-      caseMod.value = await (caseModule ??= import('@shared/schemas/case.ts'))
-      const s = await studiesApi.get(siteId(), studyId())
-      adopt(s)
-      await loadRuns(s)
-      status.value = 'success'
-    } catch (err) {
-      error.value = err
-      status.value = 'error'
+    if (library.value.length === 0 && !components.loading.value) {
+      void components.run().then((l) => {
+        if (l) library.value = l
+      })
     }
-    if (library.value.length === 0) {
-      designsApi
-        .components()
-        .then((l) => {
-          library.value = Array.isArray(l) ? l : l.items
-        })
-        .catch(() => undefined)
-    }
+    const got = await opening.run(siteId(), studyId())
+    if (!got) return
+    adopt(got.s)
+    designRun.value = got.d
+    optimizeRun.value = got.o
   }
 
   const can = computed(() => study.value?.can)
   const canEdit = computed(() => can.value?.edit === true)
+
+  const saving = useAsync((site: number, id: number, body: Parameters<typeof studiesApi.update>[2]) => studiesApi.update(site, id, body))
+  /** A run of the engine on the saved inputs, then the study as it stands after it. */
+  const running = useAsync(async (site: number, id: number, kind: 'design' | 'optimize') => {
+    const r = await studiesApi.run(site, id, kind)
+    return { r, fresh: await studiesApi.get(site, id) }
+  })
 
   /** Save the inputs; returns false when it could not (errors are shown). */
   async function save(): Promise<boolean> {
@@ -172,26 +172,23 @@ export function useStudy(siteId: () => number, studyId: () => number) {
       actionError.value = new ApiError(400, 'validation', blockedReason.value)
       return false
     }
-    saving.value = true
-    try {
-      const updated = await studiesApi.update(siteId(), s.id, {
-        name: name.value.trim(),
-        description: description.value,
-        inputs: draft.value,
-        search: Object.keys(search.value).length > 0 ? search.value : null,
-        lockVersion: s.lockVersion,
-      })
-      adopt({ ...s, ...updated }, true)
-      dirty.value = false
-      return true
-    } catch (err) {
+    const updated = await saving.run(siteId(), s.id, {
+      name: name.value.trim(),
+      description: description.value,
+      inputs: draft.value,
+      search: Object.keys(search.value).length > 0 ? search.value : null,
+      lockVersion: s.lockVersion,
+    })
+    if (!updated) {
+      const err = saving.error.value
       if (err instanceof ApiError && err.status === 409) conflict.value = true
       serverErrors.value = fieldErrors(err, ['inputs.'])
       actionError.value = err
       return false
-    } finally {
-      saving.value = false
     }
+    adopt({ ...s, ...updated }, true)
+    dirty.value = false
+    return true
   }
 
   async function run(kind: 'design' | 'optimize'): Promise<boolean> {
@@ -202,23 +199,20 @@ export function useStudy(siteId: () => number, studyId: () => number) {
       return false
     }
     if (dirty.value && !(await save())) return false
-    running.value = kind
+    runningKind.value = kind
     actionError.value = null
     serverErrors.value = {}
-    try {
-      const r = await studiesApi.run(siteId(), s.id, kind)
-      if (kind === 'design') designRun.value = r
-      else optimizeRun.value = r
-      const fresh = await studiesApi.get(siteId(), s.id)
-      adopt(fresh, true)
-      return true
-    } catch (err) {
-      serverErrors.value = fieldErrors(err, ['inputs.'])
-      actionError.value = err
+    const done = await running.run(siteId(), s.id, kind)
+    runningKind.value = null
+    if (!done) {
+      serverErrors.value = fieldErrors(running.error.value, ['inputs.'])
+      actionError.value = running.error.value
       return false
-    } finally {
-      running.value = null
     }
+    if (kind === 'design') designRun.value = done.r
+    else optimizeRun.value = done.r
+    adopt(done.fresh, true)
+    return true
   }
 
   async function pin(runId: number, optionName: string, notes: string): Promise<void> {
@@ -250,7 +244,7 @@ export function useStudy(siteId: () => number, studyId: () => number) {
   })
 
   return {
-    study, status, error, draft, name, description, search, dirty, saving, running, actionError, conflict, errors, problems, blockedReason, library,
+    study, status: opening.status, error: opening.error, draft, name, description, search, dirty, saving: saving.loading, running: runningKind, actionError, conflict, errors, problems, blockedReason, library,
     designRun, optimizeRun, currentRun, design, optimisation, cautions, can, canEdit,
     load, save, run, pin, removeOption,
   }

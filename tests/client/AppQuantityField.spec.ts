@@ -97,6 +97,29 @@ describe('AppQuantityField', () => {
     expect(wrapper.text()).toContain('in')
   })
 
+  it('redisplays a value set from outside that equals one it emitted earlier (type 5, another study shows 7, back to 5)', async () => {
+    const { wrapper } = await setup('SI', 'smallLength', 3)
+    await wrapper.find('input').setValue('5')
+    expect(wrapper.emitted('update:modelValue')?.at(-1)?.[0]).toBe(5)
+    await wrapper.setProps({ modelValue: 5 }) // the form takes what was typed
+    await wrapper.setProps({ modelValue: 7 }) // another study's value
+    expect(shown(wrapper)).toBe(7)
+    await wrapper.setProps({ modelValue: 5 }) // back to the first study
+    expect(shown(wrapper)).toBe(5)
+  })
+
+  it('redisplays the model after the person typed letters and the form reset it to a value typed before', async () => {
+    const { wrapper } = await setup('SI', 'smallLength', 3)
+    await wrapper.find('input').setValue('5')
+    await wrapper.setProps({ modelValue: 5 })
+    await wrapper.find('input').setValue('5x')
+    expect(wrapper.text()).toContain('Enter a number')
+    await wrapper.setProps({ modelValue: 3 }) // reset to the saved value...
+    await wrapper.setProps({ modelValue: 5 }) // ...then to the value typed before
+    expect(wrapper.find('input').element.value).toBe('5')
+    expect(wrapper.text()).not.toContain('Enter a number')
+  })
+
   it('shows server error messages on the field', async () => {
     const pinia = createPinia()
     setActivePinia(pinia)

@@ -3,7 +3,7 @@ import { mount, flushPromises, type VueWrapper } from '@vue/test-utils'
 import { nextTick } from 'vue'
 import CostBasisPublishDialog from '@/components/costBasis/CostBasisPublishDialog.vue'
 import { isoDate } from '@shared/costBasisInForce.ts'
-import { testVuetify } from './helpers.ts'
+import { stubVisualViewport, testVuetify } from './helpers.ts'
 
 // The rule of the product (no outside source): the version in force is the published one with the
 // latest effective date on or before today; publishing with an earlier date must be confirmed.
@@ -13,8 +13,7 @@ const versions = [
   { version: 2, status: 'draft', effectiveDate: null, publishedAt: null },
 ]
 
-// Vuetify's overlays read the visual viewport, which happy-dom does not provide.
-vi.stubGlobal('visualViewport', { width: 1024, height: 768, offsetLeft: 0, offsetTop: 0, pageLeft: 0, pageTop: 0, scale: 1, addEventListener: () => {}, removeEventListener: () => {} })
+stubVisualViewport()
 
 let wrapper: VueWrapper | null = null
 afterEach(() => {

@@ -33,6 +33,28 @@ describe('AppNumberField with a percentage scale', () => {
   })
 })
 
+describe('AppNumberField and a value set from outside', () => {
+  it('redisplays a value equal to one it emitted earlier (type 5, the form shows 7, then 5 again)', async () => {
+    const w = mount(AppNumberField, { props: { modelValue: 3, label: 'Stages' }, global: { plugins: [testVuetify()] } })
+    await w.find('input').setValue('5')
+    await w.setProps({ modelValue: 5 })
+    await w.setProps({ modelValue: 7 })
+    expect(w.find('input').element.value).toBe('7')
+    await w.setProps({ modelValue: 5 })
+    expect(w.find('input').element.value).toBe('5')
+  })
+
+  it('with a case path, letters emit NaN and keep the text; blank emits null', async () => {
+    const w = mount(AppNumberField, { props: { modelValue: 0.97, path: 'targets.recovery' }, global: { plugins: [testVuetify()] } })
+    await w.find('input').setValue('abc')
+    expect(w.emitted('update:modelValue')?.at(-1)?.[0]).toBeNaN()
+    await w.setProps({ modelValue: Number.NaN })
+    expect(w.find('input').element.value).toBe('abc')
+    await w.find('input').setValue(' ')
+    expect(w.emitted('update:modelValue')?.at(-1)?.[0]).toBeNull()
+  })
+})
+
 describe('StudyTrayChecks', () => {
   const checks: CheckResult[] = [
     { key: 'pressureDropPerTray', label: 'Pressure drop per tray', status: 'pass', value: 498.17782, limit: 1000, direction: 'max', unit: 'Pa' },

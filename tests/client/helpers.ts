@@ -44,3 +44,8 @@ export function fakeFetch(handler: (method: string, url: string, body: unknown) 
   )
   return calls
 }
+
+/** Vuetify's overlays (dialogs, menus) read the visual viewport, which happy-dom does not provide. */
+export function stubVisualViewport(): void {
+  vi.stubGlobal('visualViewport', { width: 1024, height: 768, offsetLeft: 0, offsetTop: 0, pageLeft: 0, pageTop: 0, scale: 1, addEventListener: () => {}, removeEventListener: () => {} })
+}

@@ -33,6 +33,25 @@ describe('sign-in by role', () => {
     expect(s.problems).toEqual([])
   })
 
+  it('admin creates a site in the form dialog: a code in use is marked on the Code field, a free one creates the site', async () => {
+    await signIn(s.page, 'admin')
+    await s.page.goto(`${baseUrl}/people`)
+    await s.page.getByRole('tab', { name: /Sites/ }).click()
+    await s.page.getByRole('button', { name: 'New site' }).click()
+    const dialog = s.page.getByTestId('new-site-dialog')
+    await dialog.getByLabel('Name').fill('Lantern Point pilot plant')
+    await dialog.getByLabel('Code', { exact: true }).fill('cobalt-ridge')
+    await dialog.getByRole('button', { name: 'Create site' }).click()
+    await dialog.getByText('is taken').waitFor()
+    const code = `lantern-${Date.now().toString(36)}`
+    await dialog.getByLabel('Code', { exact: true }).fill(code)
+    await dialog.getByRole('button', { name: 'Create site' }).click()
+    await dialog.waitFor({ state: 'hidden' })
+    await s.page.getByText(code).first().waitFor()
+    await shot(s.page, 'admin-site-created')
+    expect(s.problems.filter((p) => !p.includes('409'))).toEqual([])
+  })
+
   it('engineer sees the portfolio with a New study button and no People & sites', async () => {
     await signIn(s.page, 'engineer')
     const titles = await navTitles()

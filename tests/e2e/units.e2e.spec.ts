@@ -180,6 +180,12 @@ describe('economics in the person’s units', () => {
     await p.getByTestId('optimise').click()
     await textMatches(p.getByTestId('optimum-summary'), (t) => /Tray spacing\s*(18|20|24|30|36) in\b/.test(t), 'optimum on a whole-inch spacing', 120000)
     await inputMatches(spacings.locator('input'), (v) => v === '18, 20, 24, 30, 36', 'US spacings kept')
+    // advice on a search bound speaks the same units: a spacing in inches, never metres or a raw token
+    const spacingHit = p.getByTestId('bound-hit').filter({ hasText: 'tray spacing' })
+    if (/Tray spacing\s*(18|36) in\b/.test(await p.getByTestId('optimum-summary').innerText())) {
+      await textMatches(spacingHit, (t) => /\((18|36) in\)/.test(t), 'the spacing on its bound in inches')
+    }
+    for (const t of await p.getByTestId('bound-hit').allInnerTexts()) expect(t).not.toMatch(/\d m\b|\{\w+:/)
     // the charts were drawn again with the new optimum: their labels still read well
     await axisLabelsReadWell(p)
     await shot(p, 'units-economics-us')

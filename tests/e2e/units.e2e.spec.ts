@@ -196,6 +196,28 @@ describe('economics in the person’s units', () => {
 })
 
 describe('compare', () => {
+  it('at 390 px each chosen option keeps its remove button on screen, however long its name', async () => {
+    const p = s.page
+    const siteId = await signInAs(p, 'engineer')
+    const t = tag()
+    const long = 'Fermenter vent scrubber for the north hall, second train'
+    const a = await studyWithRun(p.request, siteId, `${long} A ${t}`, { optionName: 'As designed for the summer months' })
+    const b = await studyWithRun(p.request, siteId, `${long} B ${t}`, { gasFlow: 179, optionName: 'As designed for the winter months' })
+    await p.setViewportSize({ width: 390, height: 844 })
+    await p.goto(`${baseUrl}/compare?options=${a.id}-${a.optionId},${b.id}-${b.optionId}`)
+    await p.getByTestId('compare-table').waitFor()
+    const remove = p.getByRole('button', { name: 'Remove As designed for the winter months' })
+    await remove.waitFor()
+    // the button lies within the page's width (not cut off by the chip running past the card)
+    const right = () => remove.evaluate((e) => e.getBoundingClientRect().right)
+    await expect.poll(right).toBeLessThanOrEqual(390)
+    await expect.poll(right).toBeGreaterThan(0)
+    await shot(p, 'compare-chips-390')
+    await remove.click()
+    await p.getByRole('button', { name: 'Remove As designed for the winter months' }).waitFor({ state: 'detached' })
+    expect(s.problems).toEqual([])
+  })
+
   it('option names stay text in the table, legend and tooltip; each optimum in its option’s colour and shape', async () => {
     const p = s.page
     const dialogs: string[] = []

@@ -33,7 +33,7 @@ type F = (v: unknown, o?: unknown) => string
 /** The options as AppChart draws them (the shared defaults applied). */
 async function optionsOf(component: unknown, props: Record<string, unknown>): Promise<ApexOptions> {
   drawn.length = 0
-  mount(component as never, { props, global: { plugins: [testVuetify()] } })
+  mount(component as never, { props: props as never, global: { plugins: [testVuetify()] } })
   await flushPromises()
   await vi.waitFor(() => expect(drawn.length).toBe(1))
   return withChartDefaults(drawn[0]!)

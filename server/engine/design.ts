@@ -27,6 +27,7 @@ import { trayChecks } from './column/checks.ts'
 import { buildProfile } from './column/profile.ts'
 import { guardFinite } from './column/guard.ts'
 import { detailChecksum, type DesignDetail } from './column/detail.ts'
+import { quantityToken } from '../../shared/quantityText.ts'
 
 export { equilibriumCurveOf } from './column/equilibrium.ts'
 
@@ -143,7 +144,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
     warnings.push({ code: 'outsideValidity', message: 'The thin-wall shell formula is outside its validity (design pressure above 0.385 S E, or a wall above half the radius): use the thick-wall formulas', path: 'vessel.designPressure' })
   }
   if (height / Dsel > 30) warnings.push({ code: 'slenderColumn', message: `Height/diameter = ${(height / Dsel).toFixed(1)} above 30 (common practice limit); check wind load or split the column`, path: 'tray.spacing' })
-  if (height > 53) warnings.push({ code: 'tallColumn', message: `Column height ${height.toFixed(1)} m above about 53 m (175 ft, common practice limit)`, path: 'tray.spacing' })
+  if (height > 53) warnings.push({ code: 'tallColumn', message: `Column height ${quantityToken('length', height)} above about ${quantityToken('length', 53)} (common practice limit)`, path: 'tray.spacing' })
 
   const Ms = c.solute.molarMass
   // SI like everything in the engine; the edges give the public answer its kmol/h and kg/h

@@ -18,6 +18,7 @@ import { inputGroups, summaryGroups, dataSheetGroups, checkRows, costRows } from
 import { renderPdf } from './reports/pdf.ts'
 import { studyConfidence } from './reports/confidence.ts'
 import { renderXlsx } from './reports/xlsx.ts'
+import { quantityText } from '../../shared/quantityText.ts'
 
 export type { ReportModel, RunMeta, Row, RowGroup, CostRow, CurveSeries, ReviewRow, OperatingPart, ReportSection }
 export { fmt, money } from './reports/format.ts'
@@ -135,6 +136,13 @@ async function operatingPart(siteId: number, studyId: number, u: DisplayUnits): 
  * titled table with notes, printed after the operating log and given its own sheet in the
  * workbook. Add a feature's section here; return nothing when it does not apply to the study.
  */
+/** The value of a search variable on its bound, as the reader sees it: a percentage, a factor or a spacing in their units. */
+function boundValueText(variable: string, value: number, u: DisplayUnits): string {
+  if (variable === 'recovery' || variable === 'floodFraction') return `${Number((100 * value).toPrecision(4))} %`
+  if (variable === 'traySpacing') return `${Number(u.fromSI('smallLength', value).toPrecision(4))} ${u.unit('smallLength')}`
+  return String(Number(value.toPrecision(4)))
+}
+
 async function featureSections(ctx: { siteId: number; studyId: number; units: DisplayUnits; design: DesignResult | null; optimisation: OptimiseResult | null }): Promise<ReportSection[]> {
   const out: ReportSection[] = []
   const o = ctx.optimisation
@@ -145,7 +153,7 @@ async function featureSections(ctx: { siteId: number; studyId: number; units: Di
       title: 'Sensitivity of the optimum',
       notes: [
         'Each price or setting moved down and up from its base value and the design optimised again at that value; the values actually used are listed (a value may be rounded or capped, e.g. operating hours at 8,760 h/yr).',
-        ...(o.boundHits ?? []).map((h) => `The optimum sits on the ${h.bound} bound of ${names[h.variable] ?? h.variable} (${Number(h.value.toPrecision(4))}): ${h.advice}`),
+        ...(o.boundHits ?? []).map((h) => `The optimum sits on the ${h.bound} bound of ${names[h.variable] ?? h.variable} (${boundValueText(h.variable, h.value, ctx.units)}): ${quantityText(h.advice, ctx.units.system)}`),
         ...(o.sensitivity ?? []).flatMap((e) => [e.lowLimited ? `${e.label}, low: ${e.lowNote}` : '', e.highLimited ? `${e.label}, high: ${e.highNote}` : ''].filter(Boolean)),
       ],
       columns: [
@@ -201,7 +209,7 @@ export async function buildReport(siteId: number, studyId: number, reader: { nam
     const recommendedName = recommended ? options.find((o) => o.id === s.recommendedOptionId)?.name : undefined
     design = {
       run: meta(source, who), source: recommendedName ? `the recommended option "${recommendedName}" (${what})` : what,
-      groups: summaryGroups(designResult, u), raw: designResult.summary, checks: checkRows(designResult.checks, u), warnings: designResult.warnings.map((w) => w.message),
+      groups: summaryGroups(designResult, u), raw: designResult.summary, checks: checkRows(designResult.checks, u), warnings: designResult.warnings.map((w) => quantityText(w.message, u.system)),
     }
     cautions = designResult.cautions
   }

@@ -189,7 +189,7 @@ export const boundHitSchema = z.looseObject({
   variable: z.enum(['recovery', 'solventFactor', 'floodFraction', 'traySpacing']),
   bound: z.enum(['lower', 'upper']),
   value: finite,
-  advice: z.string(),
+  advice: z.string().meta({ description: 'words; a quantity in them is a token {kind:SI value} (e.g. {smallLength:0.4572}), worded in the reader\'s units by shared/quantityText.ts' }),
 })
 
 export const optimumSchema = z.looseObject({

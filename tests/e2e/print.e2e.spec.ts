@@ -8,7 +8,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import { mkdirSync } from 'node:fs'
 import path from 'node:path'
 import type { Page } from 'playwright-core'
-import { tag, api, baseUrl, openBrowser, screenshotDir, signIn, type BrowserSession } from './support.ts'
+import { tag, api, apiSignIn, baseUrl, openBrowser, screenshotDir, signIn, type BrowserSession } from './support.ts'
 
 let s: BrowserSession
 
@@ -89,6 +89,34 @@ describe('print', () => {
     expect(s.problems).toEqual([])
   })
 
+  it('prints the operating log of an approved study without its entry forms: the logged months, chart and totals stay', async () => {
+    const { page } = s
+    await signIn(page, 'engineer')
+    const { siteId, studyId, options } = await studyWithOptions(page)
+    expect((await page.request.post(api(`/sites/${siteId}/studies/${studyId}/submit`), { data: { recommendedOptionId: options[0] } })).ok()).toBe(true)
+    await apiSignIn(page.request, 'reviewer')
+    expect((await page.request.post(api(`/sites/${siteId}/studies/${studyId}/approve`), { data: { comment: 'For the print test' } })).ok()).toBe(true)
+    await apiSignIn(page.request, 'engineer')
+    const logged = await page.request.post(api(`/sites/${siteId}/studies/${studyId}/operating-entries`), { data: { month: '2026-03', gasFlow: 180, solventFlow: 300, recovery: 0.965, powerKw: 12 } })
+    expect(logged.ok()).toBe(true)
+
+    await page.goto(`${baseUrl}/sites/${siteId}/studies/${studyId}/operating`)
+    await page.getByTestId('op-table').waitFor()
+    // on screen: the month form and the CSV import are there
+    for (const id of ['op-form', 'op-file', 'op-import']) await page.getByTestId(id).waitFor({ state: 'visible' })
+
+    await page.emulateMedia({ media: 'print' })
+    await page.locator('[data-print-title="Operating log"]').waitFor({ state: 'visible' })
+    for (const id of ['op-form', 'op-file', 'op-import']) await page.getByTestId(id).waitFor({ state: 'hidden' })
+    await page.getByText('Import months from a CSV').waitFor({ state: 'hidden' })
+    await page.getByTestId('op-row-2026-03').waitFor({ state: 'visible' })
+    await page.getByTestId('op-total-actual').waitFor({ state: 'visible' })
+    // the column of row buttons (correct, remove) is screen-only too
+    await expect.poll(() => page.getByTestId('op-table').locator('th:visible, td:visible').evaluateAll((els) => els.filter((e) => e.querySelector('.v-btn') || /Correct or remove/.test(e.textContent ?? '')).length)).toBe(0)
+    await printPreview(page, 'print-operating')
+    expect(s.problems).toEqual([])
+  })
+
   it('prints the compare page without the side menu, the picker or buttons', async () => {
     const { page } = s
     await signIn(page, 'engineer')
@@ -106,6 +134,14 @@ describe('print', () => {
     await page.getByText('TAC against solvent factor').waitFor({ state: 'visible' })
     await table.waitFor({ state: 'visible' })
     expect(await table.evaluate((e) => getComputedStyle(e).breakBefore)).toBe('page')
+    // on paper (A4 less the margins: 186 mm by 269 mm, 703 by 1017 px at 96 px per inch) the two
+    // charts share the first page with the title and the chosen options, and are kept together
+    const charts = page.locator('.print-together')
+    expect(await charts.evaluate((e) => getComputedStyle(e).breakInside)).toBe('avoid')
+    await page.setViewportSize({ width: 703, height: 1017 })
+    const bottomOfSecondChart = () =>
+      page.locator('.print-together .v-card').nth(1).evaluate((e) => e.getBoundingClientRect().bottom + window.scrollY)
+    await expect.poll(bottomOfSecondChart).toBeLessThanOrEqual(1017)
     expect(await printPreview(page, 'print-compare')).toBeGreaterThanOrEqual(2)
     expect(s.problems).toEqual([])
   })

@@ -180,6 +180,12 @@ describe('economics in the person’s units', () => {
     await p.getByTestId('optimise').click()
     await textMatches(p.getByTestId('optimum-summary'), (t) => /Tray spacing\s*(18|20|24|30|36) in\b/.test(t), 'optimum on a whole-inch spacing', 120000)
     await inputMatches(spacings.locator('input'), (v) => v === '18, 20, 24, 30, 36', 'US spacings kept')
+    // advice on a search bound speaks the same units: a spacing in inches, never metres or a raw token
+    const spacingHit = p.getByTestId('bound-hit').filter({ hasText: 'tray spacing' })
+    if (/Tray spacing\s*(18|36) in\b/.test(await p.getByTestId('optimum-summary').innerText())) {
+      await textMatches(spacingHit, (t) => /\((18|36) in\)/.test(t), 'the spacing on its bound in inches')
+    }
+    for (const t of await p.getByTestId('bound-hit').allInnerTexts()) expect(t).not.toMatch(/\d m\b|\{\w+:/)
     // the charts were drawn again with the new optimum: their labels still read well
     await axisLabelsReadWell(p)
     await shot(p, 'units-economics-us')
@@ -190,6 +196,28 @@ describe('economics in the person’s units', () => {
 })
 
 describe('compare', () => {
+  it('at 390 px each chosen option keeps its remove button on screen, however long its name', async () => {
+    const p = s.page
+    const siteId = await signInAs(p, 'engineer')
+    const t = tag()
+    const long = 'Fermenter vent scrubber for the north hall, second train'
+    const a = await studyWithRun(p.request, siteId, `${long} A ${t}`, { optionName: 'As designed for the summer months' })
+    const b = await studyWithRun(p.request, siteId, `${long} B ${t}`, { gasFlow: 179, optionName: 'As designed for the winter months' })
+    await p.setViewportSize({ width: 390, height: 844 })
+    await p.goto(`${baseUrl}/compare?options=${a.id}-${a.optionId},${b.id}-${b.optionId}`)
+    await p.getByTestId('compare-table').waitFor()
+    const remove = p.getByRole('button', { name: 'Remove As designed for the winter months' })
+    await remove.waitFor()
+    // the button lies within the page's width (not cut off by the chip running past the card)
+    const right = () => remove.evaluate((e) => e.getBoundingClientRect().right)
+    await expect.poll(right).toBeLessThanOrEqual(390)
+    await expect.poll(right).toBeGreaterThan(0)
+    await shot(p, 'compare-chips-390')
+    await remove.click()
+    await p.getByRole('button', { name: 'Remove As designed for the winter months' }).waitFor({ state: 'detached' })
+    expect(s.problems).toEqual([])
+  })
+
   it('option names stay text in the table, legend and tooltip; each optimum in its option’s colour and shape', async () => {
     const p = s.page
     const dialogs: string[] = []

@@ -121,6 +121,50 @@ describe('operating log', () => {
   })
 })
 
+describe('operating log: messages in the person\'s units and words', () => {
+  type Detail = { path: string; message: string }
+  const byPath = (details: Detail[]) => Object.fromEntries(details.map((d) => [d.path, d.message]))
+
+  it('a month with nonsense names each value as the person sees it (percent, kmol/h or lbmol/h), never a bare bound', async () => {
+    const { cobalt } = await siteIds()
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const { id } = await approvedStudy(cobalt)
+    const url = `/api/v1/sites/${cobalt}/studies/${id}/operating-entries`
+    const nonsense = { month: '2026-08', gasFlow: -300, solventFlow: 0, inletMoleFraction: 1.2, recovery: 1.2, powerKw: -5 }
+    const si = await api().post(url).set(eng).send(nonsense)
+    expect(si.status).toBe(400)
+    const m = byPath(si.body.error.details)
+    expect(m['body.gasFlow']).toBe('-300 kmol/h: the gas flow must be positive')
+    expect(m['body.solventFlow']).toBe('0 kmol/h: the solvent flow must be positive')
+    expect(m['body.inletMoleFraction']).toBe('120 mol %: the inlet solute must be below 100 mol %')
+    expect(m['body.recovery']).toBe('120 %: recovery must be below 100 %')
+    expect(m['body.powerKw']).toBe('-5 kW: the power must not be negative')
+    for (const d of si.body.error.details as Detail[]) expect(d.message).not.toMatch(/expected|<1|>0|too (small|big)/i)
+
+    // 300 kmol/h = 661.4 lbmol/h (1 lb = 0.45359237 kg exactly, NIST SP 811 B.8)
+    const us = await api().post(url).set(eng).set('X-Unit-System', 'US').send({ ...nonsense, gasFlow: -300, solventFlow: 'lots' })
+    expect(us.status).toBe(400)
+    const u = byPath(us.body.error.details)
+    expect(u['body.gasFlow']).toBe('-661.4 lbmol/h: the gas flow must be positive')
+    expect(u['body.solventFlow']).toBe('not a number: enter the solvent flow')
+    const missing = await api().post(url).set(eng).send({ month: '2026-08' })
+    expect(byPath(missing.body.error.details)['body.gasFlow']).toBe('required: enter the gas flow')
+  })
+
+  it('CSV rows with values out of range are named by line in the person\'s units', async () => {
+    const { cobalt } = await siteIds()
+    const eng = { Authorization: `Bearer ${await tokenFor('engineer')}` }
+    const { id } = await approvedStudy(cobalt)
+    const csv = 'month,gasFlow,solventFlow,recovery\n2026-01,400,330,1.2\n2026-02,-300,330,0.98\n'
+    const r = await api().post(`/api/v1/sites/${cobalt}/studies/${id}/operating-entries/import`).set(eng).set('X-Unit-System', 'US').attach('file', Buffer.from(csv), 'log.csv')
+    expect(r.status).toBe(400)
+    expect(r.body.error.details).toEqual([
+      { path: 'file:line 2', message: expect.stringMatching(/^recovery: 120 %: recovery must be below 100 %$/) },
+      { path: 'file:line 3', message: expect.stringMatching(/^gasFlow: -661\.4 lbmol\/h: the gas flow must be positive$/) },
+    ])
+  })
+})
+
 describe('operating log: the standing column watched month by month', () => {
   it('rates each month with the as-built column, back-calculates the efficiency, warns of drift and splits the cost gap', async () => {
     const { cobalt } = await siteIds()

@@ -25,6 +25,7 @@ import {
 } from '../hydraulics/flooding.ts'
 import type { Balances } from './balances.ts'
 import { memoLast1 } from '../numerics/memo.ts'
+import { quantityToken } from '../../../shared/quantityText.ts'
 
 const surfaceTensionFactorOf = memoLast1(surfaceTensionFactor)
 
@@ -154,7 +155,7 @@ export function sizeColumn(c: CaseSI, bot: EndStreams, top: EndStreams, spacingI
         // oscillation between two spacings: take the larger and warn
         const lo = Math.min(t, tNew)
         t = Math.max(t, tNew)
-        warnings.push({ code: 'spacingOscillation', message: `Tray spacing and diameter did not settle (oscillating between ${lo} and ${t} m); the larger spacing ${t} m is used`, path: 'tray.spacing' })
+        warnings.push({ code: 'spacingOscillation', message: `Tray spacing and diameter did not settle (oscillating between ${quantityToken('smallLength', lo)} and ${quantityToken('smallLength', t)}); the larger spacing ${quantityToken('smallLength', t)} is used`, path: 'tray.spacing' })
         break
       }
       tPrev = t
@@ -180,8 +181,8 @@ export function sizeColumn(c: CaseSI, bot: EndStreams, top: EndStreams, spacingI
   }
   const Dsel = roundUp(Dcalc, step)
   if (spacingIn === 'auto' && Dsel > tr.spacingRule[tr.spacingRule.length - 1]!.maxDiameter) {
-    warnings.push({ code: 'spacingRuleExceeded', message: `Diameter ${Dsel.toFixed(2)} m is beyond the spacing rule; its last row is used`, path: 'tray.spacingRule' })
+    warnings.push({ code: 'spacingRuleExceeded', message: `Diameter ${quantityToken('length', Dsel)} is beyond the spacing rule; its last row is used`, path: 'tray.spacingRule' })
   }
-  if (Dsel > 8) warnings.push({ code: 'largeDiameter', message: `Diameter ${Dsel.toFixed(2)} m is beyond common tray-column practice (8 m); consider parallel columns`, path: 'gas.flow' })
+  if (Dsel > 8) warnings.push({ code: 'largeDiameter', message: `Diameter ${quantityToken('length', Dsel)} is beyond common tray-column practice (${quantityToken('length', 8)}); consider parallel columns`, path: 'gas.flow' })
   return { t, Dcalc, Dsel, sBot, sTop, designEndIsBottom, spacingIterations, FST, FF, FHA, AhAa }
 }

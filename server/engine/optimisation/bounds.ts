@@ -1,15 +1,19 @@
 /**
  * The optimum on a search bound. When the lowest-cost point sits on the edge of the range
  * searched, a lower cost may lie beyond it: the answer names the variable and the bound and
- * advises widening the range (or says what sets the bound when it is not a choice).
+ * advises widening the range (or says what sets the bound when it is not a choice). A length in
+ * the advice is a token of its SI value (shared/quantityText.ts): the reader's edge words it in
+ * their units.
  */
 import type { SearchSpec } from '../../../shared/schemas/search.ts'
 import type { BoundHit } from './evaluator.ts'
+import { quantityToken } from '../../../shared/quantityText.ts'
 
 /** A variable is on a bound when within this fraction of its range of it (the polish stops 1e-3 inside a cell). */
 export const BOUND_TOLERANCE = 2e-3
 
 const pct = (v: number): string => `${Number((100 * v).toPrecision(4))} %`
+const spacing = (m: number): string => quantityToken('smallLength', m)
 
 /**
  * Bound hits of an optimum.
@@ -63,8 +67,8 @@ export function boundHits(
   if (ts.length > 1) {
     const lo = Math.min(...ts)
     const hi = Math.max(...ts)
-    if (opt.traySpacing === lo) out.push({ variable: 'traySpacing', bound: 'lower', value: lo, advice: `The optimum takes the smallest tray spacing offered (${lo} m): add a smaller spacing to the list to see whether it costs less (access for maintenance usually needs 0.45 m or more).` })
-    else if (opt.traySpacing === hi) out.push({ variable: 'traySpacing', bound: 'upper', value: hi, advice: `The optimum takes the largest tray spacing offered (${hi} m): add a larger spacing to the list to see whether it costs less.` })
+    if (opt.traySpacing === lo) out.push({ variable: 'traySpacing', bound: 'lower', value: lo, advice: `The optimum takes the smallest tray spacing offered (${spacing(lo)}): add a smaller spacing to the list to see whether it costs less (access for maintenance usually needs ${spacing(0.45)} or more).` })
+    else if (opt.traySpacing === hi) out.push({ variable: 'traySpacing', bound: 'upper', value: hi, advice: `The optimum takes the largest tray spacing offered (${spacing(hi)}): add a larger spacing to the list to see whether it costs less.` })
   }
   return out
 }

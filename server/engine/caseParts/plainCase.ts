@@ -21,21 +21,19 @@ const isPlainObject = (v: unknown): v is Obj => {
   return p === Object.prototype || p === null
 }
 
-const rules = new Map<string, CaseFieldRule>()
-function rule(path: string): CaseFieldRule {
+const rules = new Map<string, CaseFieldRule | null>()
+function rule(path: string): CaseFieldRule | null {
   let r = rules.get(path)
-  if (!r) {
-    r = ruleFor(path)
-    if (!r) throw new Error(`no field rule for ${path}`)
-    rules.set(path, r)
-  }
+  if (r === undefined) rules.set(path, (r = ruleFor(path) ?? null))
   return r
 }
 
-/** A finite number that keeps the rule of its field (when it has one). */
+/** A finite number that keeps the rule of its field ('' for none; a path without a rule goes to the schema). */
 function numberOk(v: unknown, path: string): boolean {
   if (typeof v !== 'number' || !Number.isFinite(v)) return false
-  return path === '' || ruleProblem(rule(path), v, null) === null
+  if (path === '') return true
+  const r = rule(path)
+  return r !== null && ruleProblem(r, v, null) === null
 }
 
 /** A copy of a section whose keys are all in `spec` and whose values all keep their rules; null otherwise. */

@@ -32,6 +32,15 @@ export { CASE_DEFAULTS } from './caseParts/defaults.ts'
 /** An x–y table measured more than this far [K] from the column temperature is warned about (common practice, no source). */
 export const TABLE_TEMPERATURE_TOLERANCE = 2
 
+function needProp(path: string): never {
+  throw new InvalidInputError(path, `missing: give the solvent ${path.split('.')[1]} or use "water" (which has property correlations)`)
+}
+
+/** A length of the case in SI, or its default when left out. */
+function len(c: Ctx, v: QuantityInput | undefined, def: number, path: string, kind: QuantityKind = 'smallLength'): number {
+  return v === undefined ? def : c.positive(c.q(kind, v, path), path)
+}
+
 /**
  * Resolve names, apply defaults, convert to SI and check the input.
  * @throws InvalidInputError (path + reason)
@@ -108,9 +117,6 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
   }
   const x0 = sv.soluteMoleFraction !== undefined ? c.range(sv.soluteMoleFraction, 0, 1, 'solvent.soluteMoleFraction', false, true) : 0
   const correl = solventLib?.liquidCorrelations?.value === 'water'
-  const needProp = (path: string) => {
-    throw new InvalidInputError(path, `missing: give the solvent ${path.split('.')[1]} or use "water" (which has property correlations)`)
-  }
   const colT = input.column?.temperature !== undefined ? c.absTemp(c.q('temperature', input.column.temperature, 'column.temperature'), 'column.temperature') : solvT
   let solvM: number
   if (sv.molarMass !== undefined) solvM = c.positive(c.q('molarMass', sv.molarMass, 'solvent.molarMass'), 'solvent.molarMass')
@@ -215,13 +221,11 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
   // ---- tray
   const t = input.tray ?? {}
   const D = CASE_DEFAULTS.tray
-  const len = (v: QuantityInput | undefined, def: number, path: string, kind: QuantityKind = 'smallLength') =>
-    v === undefined ? def : c.positive(c.q(kind, v, path), path)
-  const holeDiameter = len(t.holeDiameter, D.holeDiameter, 'tray.holeDiameter')
-  const holePitch = len(t.holePitch, D.holePitch, 'tray.holePitch')
+  const holeDiameter = len(c, t.holeDiameter, D.holeDiameter, 'tray.holeDiameter')
+  const holePitch = len(c, t.holePitch, D.holePitch, 'tray.holePitch')
   if (holePitch <= holeDiameter) throw new InvalidInputError('tray.holePitch', 'must be larger than the hole diameter')
-  const thickness = len(t.thickness, D.thickness, 'tray.thickness')
-  const weirHeight = len(t.weirHeight, D.weirHeight, 'tray.weirHeight')
+  const thickness = len(c, t.thickness, D.thickness, 'tray.thickness')
+  const weirHeight = len(c, t.weirHeight, D.weirHeight, 'tray.weirHeight')
   const downcomerClearance =
     t.downcomerClearance !== undefined
       ? c.positive(c.q('smallLength', t.downcomerClearance, 'tray.downcomerClearance'), 'tray.downcomerClearance')
@@ -250,7 +254,7 @@ export function normaliseCase(input: CaseInput, library: ComponentLibrary): Case
   // ---- column
   const col = input.column ?? {}
   const column = {
-    diameterStep: len(col.diameterStep, CASE_DEFAULTS.column.diameterStep, 'column.diameterStep', 'length'),
+    diameterStep: len(c, col.diameterStep, CASE_DEFAULTS.column.diameterStep, 'column.diameterStep', 'length'),
     topAllowance: col.topAllowance === undefined ? CASE_DEFAULTS.column.topAllowance : nonNeg(c.q('length', col.topAllowance, 'column.topAllowance'), 'column.topAllowance'),
     bottomAllowance:
       col.bottomAllowance === undefined ? CASE_DEFAULTS.column.bottomAllowance : nonNeg(c.q('length', col.bottomAllowance, 'column.bottomAllowance'), 'column.bottomAllowance'),

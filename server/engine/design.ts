@@ -125,7 +125,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
   const { bot, top, leanMass } = endStreams(c, b)
   const sz = sizeColumn(c, bot, top, spacingIn, floodFraction, warnings)
   const t = sz.t
-  const ts = trayState(c, sz, bot, top, warnings)
+  const ts = trayState(c, sz, bot, top, warnings, wantDetail)
   const checks = trayChecks(ts)
   const hBot = ts.bottom
   const hTop = ts.top
@@ -243,7 +243,7 @@ export function designSI(c: CaseSI, vars?: Partial<DesignVariables>, opts?: Desi
           weirLength: ts.geometry.Lw,
           bottom: { streams: bot, sizing: sz.sBot, tray: hBot },
           top: { streams: top, sizing: sz.sTop, tray: hTop },
-          turndown: { fraction: ts.turndownFraction, tray: ts.turndown },
+          turndown: { fraction: ts.turndownFraction, tray: ts.turndown! },
           // cross-check: hole velocity below which the tray weeps (Treybal eq. 6.46); 0 when the gas viscosity is unknown
           weepHoleVelocityTreybal: ts.weepV,
           liquidFlowDistance: ts.Zflow,

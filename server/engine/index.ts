@@ -7,6 +7,7 @@ import type { DesignResult, DesignVariables } from './contract.ts'
 import { normaliseCase, mergeLibraries, type CaseSI, type ComponentLibrary } from './case.ts'
 import { designSI, type DesignOptions } from './design.ts'
 import { InvalidInputError } from './errors.ts'
+import { readPlainCase } from './caseParts/plainCase.ts'
 import componentsJson from '../../data/components.json' with { type: 'json' }
 
 export { ENGINE_VERSION } from './version.ts'
@@ -28,8 +29,13 @@ export function invalidFromZod(err: z.ZodError, prefix = ''): InvalidInputError 
   return new InvalidInputError(first.path, first.message, issues)
 }
 
-/** Parse a raw case (unknown JSON) with the shared schema. */
+/**
+ * Parse a raw case (unknown JSON) with the shared schema. A plain case (bare numbers, known keys,
+ * every rule kept) is read without zod, to the same result (caseParts/plainCase.ts).
+ */
 export function parseCase(raw: unknown, prefix = ''): CaseInput {
+  const plain = readPlainCase(raw)
+  if (plain) return plain
   const r = caseSchema.safeParse(raw)
   if (!r.success) throw invalidFromZod(r.error, prefix)
   return r.data

@@ -203,7 +203,6 @@ export function ruleProblem(rule: CaseFieldRule, v: QuantityInput, system: ShowS
   } catch {
     return null // the unit itself is refused elsewhere
   }
-  const shown = () => formatInput(rule.shown, v, system)
   if (!Number.isFinite(c)) return `not a number: enter ${rule.noun}`
   const { min, max } = rule
   const belowMin = min !== undefined && (min.open ? c <= min.value : c < min.value)
@@ -216,7 +215,7 @@ export function ruleProblem(rule: CaseFieldRule, v: QuantityInput, system: ShowS
   } else {
     must = `must be ${max!.open ? 'below' : 'at most'} ${limitText(rule, max!, system)}`
   }
-  return `${shown()}: ${rule.noun} ${must}`
+  return `${formatInput(rule.shown, v, system)}: ${rule.noun} ${must}`
 }
 
 /** The message for a blank required field. */

@@ -100,6 +100,27 @@ function buildChoice(requested: 'auto' | Method, eq: EquilibriumCurve, yIn: numb
   return { method, note: `${note} Minimum solvent from the pinch analysis on the solute-free basis (rich-end or tangent pinch).`, straightness, kremserValid }
 }
 
+/**
+ * The pinches of the last curve, by the outlet Y1: the pinch depends on the case and the recovery
+ * alone (not on the solvent factor), and a scan with a golden-section refinement costs as much as
+ * a tenth of a design; the optimiser, a sensitivity study and a batch ask for the same recoveries
+ * over and over. At most 256 entries per curve (then it starts again), compared like chooseMethod.
+ */
+let pinches: { eq: EquilibriumCurve; linearK: number; X0: number; YIn: number; byY1: Map<number, MinSlope> } | null = null
+
+function pinchOf(eq: EquilibriumCurve, Y1: number, X0: number, YIn: number): MinSlope {
+  const linearK = eq instanceof LinearEquilibrium ? eq.K0 : NaN
+  let pc = pinches
+  if (!pc || !(pc.eq === eq || pc.linearK === linearK) || pc.X0 !== X0 || pc.YIn !== YIn) pc = pinches = { eq, linearK, X0, YIn, byY1: new Map() }
+  let p = pc.byY1.get(Y1)
+  if (!p) {
+    if (pc.byY1.size >= 256) pc.byY1.clear()
+    p = Object.freeze(minimumSlope(eq, Y1, X0, YIn))
+    pc.byY1.set(Y1, p)
+  }
+  return p
+}
+
 export interface Balances {
   method: Method
   choice: MethodChoice
@@ -189,7 +210,7 @@ export function solveBalances(
   }
 
   // ---- minimum solvent (exact pinch for every method) and solvent
-  const pinch = minimumSlope(eq, Y1, X0, YIn)
+  const pinch = pinchOf(eq, Y1, X0, YIn)
   if (!(pinch.slope > 0) || !Number.isFinite(pinch.slope)) {
     throw new InfeasibleDesignError([{ path: 'equilibrium', code: 'noPinch', message: 'No minimum solvent rate could be found for this equilibrium and target' }])
   }

@@ -136,7 +136,7 @@ export function trayChecks(ts: TrayState): CheckResult[] {
   const psi = Math.max(b.psi, t.psi)
   const hB = b.backup / b.backupLimit >= t.backup / t.backupLimit ? b : t
   const residence = Math.min(b.residence, t.residence)
-  const turndown = verdict(L.turndown!, ts.turndown.Fr, L.turndown!.limit!)
+  const turndown = verdict(L.turndown!, ts.turndownFr, L.turndown!.limit!)
   turndown.label = `Weeping at turndown (${Math.round(100 * ts.turndownFraction)} % of design gas)`
   return [
     verdict(L.flooding!, 100 * fracFlood, L.flooding!.limit!),

@@ -135,16 +135,36 @@ export interface TrayState {
   geometry: TrayGeometry
   bottom: TrayHydraulics
   top: TrayHydraulics
-  turndown: TrayHydraulics
+  /** the whole tray at turndown; null when only the check was asked for (see trayState) */
+  turndown: TrayHydraulics | null
+  /** hole Froude number at turndown (the check) */
+  turndownFr: number
   turndownFraction: number
-  /** Treybal eq. 6.46 weeping hole velocity [m/s]; 0 when the gas viscosity is unknown */
+  /** Treybal eq. 6.46 weeping hole velocity [m/s]; 0 when the gas viscosity is unknown or the detail was not asked for */
   weepV: number
   /** liquid flow path across the tray [m] */
   Zflow: number
 }
 
-/** The tray at the selected diameter, both ends and turndown. */
-export function trayState(c: CaseSI, sz: Sizing, bot: EndStreams, top: EndStreams, warnings: EngineWarning[]): TrayState {
+/**
+ * The hole Froude number of one end: the first heads of trayHeads (the same operations, so the
+ * same number) without the entrainment and the downcomer.
+ */
+function froudeAt(s: EndStreams, g: HeadsGeometry): number {
+  const vo = s.Q / g.Ah
+  const va = s.Q / g.Aa
+  const Ks = va * Math.sqrt(s.rhoV / (g.rhoL - s.rhoV))
+  const phiE = frothDensity(Ks)
+  const hL = clearLiquidHeight(phiE, g.hw, s.qL, g.Lw, g.Cl)
+  return holeFroudeNumber(s.rhoV, vo, g.rhoL, hL)
+}
+
+/**
+ * The tray at the selected diameter, both ends and turndown. Without `detail` (the optimiser's
+ * lean designs) only the Froude number at turndown, which the check needs, is computed: not the
+ * rest of the turndown tray nor the second weeping method, which only the detail shows.
+ */
+export function trayState(c: CaseSI, sz: Sizing, bot: EndStreams, top: EndStreams, warnings: EngineWarning[], detail = true): TrayState {
   const tr = c.tray
   const D = sz.Dsel
   const AdAt = Math.max(sz.sBot.AdAt, sz.sTop.AdAt)
@@ -167,10 +187,11 @@ export function trayState(c: CaseSI, sz: Sizing, bot: EndStreams, top: EndStream
   const topWeepsFirst = hTop.Fr <= hBot.Fr
   const sLow = topWeepsFirst ? top : bot
   const turn: EndStreams = { gasMol: sLow.gasMol * tdf, gasMass: sLow.gasMass * tdf, rhoV: sLow.rhoV, Q: sLow.Q * tdf, liqMass: sLow.liqMass, qL: sLow.qL }
-  const hTurn = trayHydraulics(turn, topWeepsFirst ? sz.sTop : sz.sBot, geometry, hg)
+  const hTurn = detail ? trayHydraulics(turn, topWeepsFirst ? sz.sTop : sz.sBot, geometry, hg) : null
+  const turndownFr = hTurn ? hTurn.Fr : froudeAt(turn, hg)
   // second weeping method (Treybal eq. 6.46), when the gas viscosity is known
   const lwRatio = Lw / D
   const Zflow = D * Math.sqrt(1 - lwRatio * lwRatio)
-  const weepV = c.gas.viscosity ? weepVelocityTreybal(c.gas.viscosity, c.solvent.surfaceTension, top.rhoV, c.solvent.density, tr.holeDiameter, tr.thickness, Aa, tr.holePitch, Zflow) : 0
-  return { geometry, bottom: hBot, top: hTop, turndown: hTurn, turndownFraction: tdf, weepV, Zflow }
+  const weepV = detail && c.gas.viscosity ? weepVelocityTreybal(c.gas.viscosity, c.solvent.surfaceTension, top.rhoV, c.solvent.density, tr.holeDiameter, tr.thickness, Aa, tr.holePitch, Zflow) : 0
+  return { geometry, bottom: hBot, top: hTop, turndown: hTurn, turndownFr, turndownFraction: tdf, weepV, Zflow }
 }

@@ -1,11 +1,14 @@
 // Compiles the server and the command lines to plain JavaScript in dist-server/ (esbuild: one
-// bundle per entry, shared code split into chunks, npm packages left in node_modules).
+// bundle per entry, shared code split into chunks, npm packages left in node_modules), and the
+// start-up snapshot of the command lines (cli.blob, see snapshotId below and scripts/cli.sh).
 // `npm run build` runs it after the client build; scripts/run-built.mjs runs it on demand when
 // the sources are newer than the build.
 import { build } from 'esbuild'
-import { mkdirSync, renameSync, rmSync, writeFileSync, existsSync } from 'node:fs'
+import { execFile } from 'node:child_process'
+import { promisify } from 'node:util'
+import { mkdirSync, renameSync, rmSync, statSync, writeFileSync, existsSync } from 'node:fs'
 import { dirname, join } from 'node:path'
-import { fileURLToPath } from 'node:url'
+import { fileURLToPath, pathToFileURL } from 'node:url'
 
 export const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..')
 export const OUT = join(ROOT, 'dist-server')
@@ -42,6 +45,51 @@ const englishOnly = {
   },
 }
 
+/**
+ * What the start-up snapshot is valid for: a snapshot only loads in the very node binary that made
+ * it (scripts/cli.sh compares this line, written beside the blob, before it uses the blob) and
+ * holds the absolute path of the project it was built in (mathjs is found from there).
+ */
+export function snapshotId(nodePath = process.execPath) {
+  const st = statSync(nodePath)
+  return `${ROOT} ${st.size} ${Math.floor(st.mtimeMs / 1000)}`
+}
+
+/**
+ * The command lines as one CommonJS bundle run into a V8 start-up snapshot (node --build-snapshot):
+ * `node --snapshot-blob dist-server/cli.blob design FILE` starts with every module already
+ * loaded, the schemas built and the cost presets parsed. Returns false (and leaves no blob) when
+ * this node cannot make one; the command lines then run from the plain bundles.
+ */
+async function buildSnapshot(dir, quiet) {
+  const bundle = join(dir, 'cli-snapshot.cjs')
+  await build({
+    absWorkingDir: ROOT,
+    entryPoints: [join(ROOT, 'server/cli/bin/snapshot.ts')],
+    outfile: bundle,
+    bundle: true,
+    format: 'cjs',
+    platform: 'node',
+    target: 'node20',
+    plugins: [englishOnly],
+    minifyWhitespace: true,
+    minifySyntax: true,
+    // the bundle's own place once dist-server/ is swapped in (units.ts finds mathjs from it)
+    define: { 'import.meta.url': JSON.stringify(pathToFileURL(join(OUT, 'cli-snapshot.cjs')).href) },
+    logLevel: quiet ? 'error' : 'warning',
+  })
+  const blob = join(dir, 'cli.blob')
+  try {
+    await promisify(execFile)(process.execPath, ['--snapshot-blob', blob, '--build-snapshot', bundle], { cwd: ROOT, env: { ...process.env, NODE_OPTIONS: '' } })
+  } catch (e) {
+    rmSync(blob, { force: true })
+    console.warn(`[scrubwright] no start-up snapshot of the command lines (they run from the plain bundles): ${String(e.stderr || e.message).trim().split('\n')[0]}`)
+    return false
+  }
+  writeFileSync(join(dir, 'cli.blob.id'), snapshotId() + '\n')
+  return true
+}
+
 /** Build into a fresh folder, then swap it in, so a command never starts from a half-written build. */
 export async function buildServer({ quiet = false } = {}) {
   const t0 = Date.now()
@@ -65,6 +113,7 @@ export async function buildServer({ quiet = false } = {}) {
   await Promise.all([
     build({ ...common, entryPoints: entries(ENTRIES), packages: 'external' }),
     build({ ...common, entryPoints: entries(CLI_ENTRIES), chunkNames: 'cli-[hash]', plugins: [englishOnly], minifyWhitespace: true, minifySyntax: true }),
+    buildSnapshot(tmp, quiet),
   ])
   writeFileSync(join(tmp, 'BUILT'), new Date().toISOString() + '\n')
   const old = `${OUT}.old-${process.pid}`

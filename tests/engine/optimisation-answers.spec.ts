@@ -13,6 +13,7 @@ import { caseToSI } from '../../server/engine/index.ts'
 import { loadPreset } from '../../server/engine/costing/presets.ts'
 import { optimise } from '../../server/engine/optimisation/optimise.ts'
 import { boundHits } from '../../server/engine/optimisation/bounds.ts'
+import { groupThousands } from '../../server/engine/optimisation/sensitivity.ts'
 import { searchSpecSchema, type SearchSpecInput } from '../../shared/schemas/search.ts'
 
 const example = JSON.parse(readFileSync('data/examples/optimize.json', 'utf8')) as { case: Record<string, unknown>; search: SearchSpecInput }
@@ -89,5 +90,14 @@ describe('bound hits, rule by rule (no optimisation)', () => {
   })
   it('inside every range: no hit', () => {
     expect(boundHits({ recovery: 0.95, solventFactor: 2, floodFraction: 0.7, traySpacing: 0.6 }, search, [0.9, 0.999])).toEqual([])
+  })
+})
+
+describe('numbers in the sensitivity notes', () => {
+  it('thousands are grouped exactly as Intl.NumberFormat en-GB groups them', () => {
+    const intl = new Intl.NumberFormat('en-GB')
+    const values = [0, -0, 7, -7, 999, 1000, -1000, 8760, 12345, 123456, 1234567, -98765432, 1.234e9, 9.999e20, 1.234e21, 5e-7, 1234.5, -0.25]
+    for (let i = 0; i < 200; i++) values.push(Number((((i * 7919) % 1000) * 10 ** (i % 19) * (i % 2 ? -1 : 1)).toPrecision(4)))
+    for (const v of values) expect(groupThousands(v), String(v)).toBe(intl.format(v))
   })
 })

@@ -58,13 +58,23 @@ function clonePlain<T>(v: T): T {
   return v
 }
 
-/** One formatter for the notes: toLocaleString would build a new one for every number. */
-const THOUSANDS = new Intl.NumberFormat('en-GB')
+/** Made on first need: building a number format loads the locale data (tens of ms). */
+let thousands: Intl.NumberFormat | undefined
+
+/**
+ * A number with its thousands separated as en-GB writes them (1,234,567): whole numbers written
+ * without exponent are grouped here, anything else goes through Intl.NumberFormat('en-GB').
+ */
+export function groupThousands(r: number): string {
+  const s = String(r)
+  if (/^-?\d+$/.test(s) && !Object.is(r, -0)) return s.replace(/\B(?=(\d{3})+$)/g, ',')
+  return (thousands ??= new Intl.NumberFormat('en-GB')).format(r)
+}
 
 /** A number for a note: 4 significant digits, thousands separated. */
 function num(v: number): string {
   const r = Number(v.toPrecision(4))
-  return Math.abs(r) >= 1000 ? THOUSANDS.format(r) : String(r)
+  return Math.abs(r) >= 1000 ? groupThousands(r) : String(r)
 }
 const signedPct = (c: number): string => `${c >= 0 ? '+' : '\u2212'}${Number(Math.abs(100 * c).toPrecision(3))} %`
 

@@ -1,16 +1,11 @@
 /**
  * Quantities inside words. The engine writes a quantity in a sentence (advice, a note) as a token
  * `{kind:value}`: the value in SI of a quantity kind of ./units.ts, e.g. `{smallLength:0.4572}`.
- * The edge (the client, the report) words it in the reader's unit system with quantityText:
+ * The engine writes them (server/engine/words.ts); the edge (the client, the report) words it in the reader's unit system with quantityText:
  * '18 in' or '457.2 mm'. Text without tokens passes unchanged. Imports only ./units.ts and ./unitText.ts.
  */
 import { QUANTITY_KINDS, displayUnit, fromSI, type QuantityKind } from './units.ts'
 import { prettyUnit } from './unitText.ts'
-
-/** The token for an SI value of a kind, for the engine's words. */
-export function quantityToken(kind: QuantityKind, valueSI: number): string {
-  return `{${kind}:${valueSI}}`
-}
 
 /** Words with `{kind:SI value}` tokens, each quantity in the display unit of the system (4 significant digits). */
 export function quantityText(text: string, system: 'SI' | 'US', digits = 4): string {

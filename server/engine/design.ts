@@ -27,7 +27,7 @@ import { trayChecks } from './column/checks.ts'
 import { buildProfile } from './column/profile.ts'
 import { guardFinite } from './column/guard.ts'
 import { detailChecksum, type DesignDetail } from './column/detail.ts'
-import { quantityToken } from '../../shared/quantityText.ts'
+import { quantityToken } from './words.ts'
 
 export { equilibriumCurveOf } from './column/equilibrium.ts'
 

@@ -25,7 +25,7 @@ import {
 } from '../hydraulics/flooding.ts'
 import type { Balances } from './balances.ts'
 import { memoLast1 } from '../numerics/memo.ts'
-import { quantityToken } from '../../../shared/quantityText.ts'
+import { quantityToken } from '../words.ts'
 
 const surfaceTensionFactorOf = memoLast1(surfaceTensionFactor)
 

@@ -7,7 +7,7 @@
  */
 import type { SearchSpec } from '../../../shared/schemas/search.ts'
 import type { BoundHit } from './evaluator.ts'
-import { quantityToken } from '../../../shared/quantityText.ts'
+import { quantityToken } from '../words.ts'
 
 /** A variable is on a bound when within this fraction of its range of it (the polish stops 1e-3 inside a cell). */
 export const BOUND_TOLERANCE = 2e-3

@@ -3,7 +3,7 @@
 export function fmtNumber(v: number | null | undefined, digits = 3): string {
   if (v == null || !Number.isFinite(v)) return '–'
   const a = Math.abs(v)
-  if (a !== 0 && (a < 1e-3 || a >= 1e7)) return v.toExponential(digits - 1)
+  if (a !== 0 && (a < 1e-3 || a >= 1e12)) return v.toExponential(digits - 1)
   const decimals = a === 0 ? 0 : Math.max(0, digits - 1 - Math.floor(Math.log10(a)))
   return v.toLocaleString(undefined, { maximumFractionDigits: Math.min(decimals, 6), minimumFractionDigits: 0 })
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { fmtChart } from '@/utils/format.ts'
+import { fmtChart, fmtNumber } from '@/utils/format.ts'
 
 // Expected strings follow the en-US number format of ECMA-402 (Intl.NumberFormat): comma as the
 // thousands separator, period as the decimal mark.
@@ -24,5 +24,16 @@ describe('fmtChart: chart axes and tooltips', () => {
     expect(fmtChart('Solvent pump', 4, 'en-US')).toBe('Solvent pump')
     expect(fmtChart('<b>x</b>', 4, 'en-US')).toBe('<b>x</b>')
     expect(fmtChart(undefined)).toBe('')
+  })
+})
+
+describe('fmtNumber: numbers in tables', () => {
+  // A yearly solvent volume in US units runs to tens of millions of gallons: a reader expects
+  // thousands separators there, not "3.00e+7" (ECMA-402 en-US grouping).
+  it('tens of millions keep separators; only beyond a trillion an exponent', () => {
+    expect(fmtNumber(30026544.4).replace(/\D/g, '')).toBe('30026544')
+    expect(fmtNumber(30026544.4)).not.toMatch(/e/)
+    expect(fmtNumber(2.5e13)).toBe('2.50e+13')
+    expect(fmtNumber(0.0004)).toBe('4.00e-4')
   })
 })

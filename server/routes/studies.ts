@@ -5,7 +5,7 @@ import * as runs from '../services/runs.ts'
 import { idParam } from '../../shared/schemas/common.ts'
 import { storedRunSchema } from '../../shared/schemas/results.ts'
 import { studyListQuery, createStudyBody, updateStudyBody, createRunBody, createOptionBody } from '../../shared/schemas/studies.ts'
-import { optionAnswer, pageOf, runComparisonAnswer, runHeadAnswer, studyAnswer, studyHeadAnswer } from '../../shared/schemas/answers.ts'
+import { optionAnswer, runComparisonAnswer, runHeadAnswer, studyAnswer, studyListAnswer } from '../../shared/schemas/answers.ts'
 import { z } from 'zod'
 
 const study = (p: unknown) => parse(idParam, p, 'params.studyId')
@@ -14,7 +14,7 @@ export function studyRoutes(router: Router): Router {
   return defineRoutes(router, [
     {
       method: 'get', path: '/sites/:siteId/studies', access: { kind: 'site', roles: ANY_ROLE }, summary: 'Studies of the site: paged, filtered (status, q) and sorted',
-      doc: { query: studyListQuery, response: pageOf(studyHeadAnswer) },
+      doc: { query: studyListQuery, response: studyListAnswer },
       handler: (req) => svc.listStudies(req.site!.id, parse(studyListQuery, req.query, 'query')),
     },
     {

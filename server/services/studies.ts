@@ -4,6 +4,8 @@ import { Study, User, Run, StudyOption, StudyView } from '../db/models/index.ts'
 import { ConflictError, NotFoundError } from '../errors.ts'
 import { audit } from './audit.ts'
 import { userNames } from './people.ts'
+import { basisInForce } from './cost-bases.ts'
+import type { CostBasisData } from '../../shared/schemas/costBasis.ts'
 import type { AuthUser } from '../types.d.ts'
 import type { Role, StudyStatus } from '../../shared/schemas/common.ts'
 import type { StudyRow, RunRow, OptionRow, StudyPermissions } from '../../shared/schemas/studies.ts'
@@ -83,7 +85,10 @@ export async function listStudies(
     include: [{ model: User, as: 'owner', attributes: ['id', 'name'] }],
     attributes: { exclude: ['inputs', 'search'] },
   })
-  return { items: rows.map((s) => row(s as Study & { owner: User })), total: count, page: q.page, pageSize: q.pageSize }
+  // optimum TACs are priced with the site's cost basis, so its currency in force heads the column
+  const basis = await basisInForce(siteId)
+  const currency = basis ? (basis.data as CostBasisData).general.currency : null
+  return { items: rows.map((s) => row(s as Study & { owner: User })), total: count, page: q.page, pageSize: q.pageSize, currency }
 }
 
 export async function findStudy(siteId: number, studyId: number): Promise<Study> {

@@ -68,6 +68,9 @@ export const optionAnswer = z.looseObject({ id, studyId: id, runId: id, name: z.
 
 export const studyHeadAnswer = z.looseObject({ id, name: z.string(), status: z.string(), ownerId: id, revision: z.number().int(), lockVersion: z.number().int(), updatedAt: when })
 
+/** A page of the site's studies, with the currency their optimum TACs are in (the cost basis in force; null without one). */
+export const studyListAnswer = pageOf(studyHeadAnswer).extend({ currency: z.string().nullable() })
+
 export const studyAnswer = studyHeadAnswer.extend({
   inputs: obj,
   runs: z.array(runHeadAnswer),

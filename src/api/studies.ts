@@ -22,7 +22,7 @@ async function checkedRun(p: Promise<RunView>): Promise<RunView> {
 }
 
 export const studiesApi = {
-  list: (siteId: number, query: StudyListQuery): Promise<Paged<StudyRow>> => http.get(base(siteId), { query }),
+  list: (siteId: number, query: StudyListQuery): Promise<Paged<StudyRow> & { currency?: string | null }> => http.get(base(siteId), { query }),
   create: (siteId: number, body: { name: string; description: string; inputs: CaseInput }): Promise<StudyView> =>
     http.post(base(siteId), body),
   get: (siteId: number, studyId: number): Promise<StudyView> => http.get(`${base(siteId)}/${studyId}`),

@@ -14,6 +14,8 @@ describe('studies', () => {
     const all = await api().get(`/api/v1/sites/${cobalt}/studies?sort=name`).set(auth)
     expect(all.status).toBe(200)
     expect(all.body.total).toBeGreaterThanOrEqual(2)
+    // the optimum TACs are in the currency of the site's cost basis in force (the demo's is USD)
+    expect(all.body.currency).toBe('USD')
     const names = all.body.items.map((s: { name: string }) => s.name)
     // The database orders by its collation; names other tests create may start with punctuation,
     // which collations and JavaScript order differently. Names starting with a letter must come in

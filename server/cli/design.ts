@@ -20,6 +20,7 @@ import { evaluateBatch, evaluateCase, InvalidInputError, ENGINE_VERSION } from '
 import type { DesignResult } from '../engine/contract.ts'
 import type { DesignResult as PublicDesign } from '../../shared/schemas/results.ts'
 import { designToPublic, summaryToPublic } from '../../shared/summaryUnits.ts'
+import { quantityText } from '../../shared/quantityText.ts'
 import { priceDesign } from '../engine/costing/index.ts'
 import { costBasisFrom } from './input.ts'
 import { caseSlot, invalidJsonSlot, slotContext, type SlotContext } from '../engine/batch/slots.ts'
@@ -31,7 +32,14 @@ export type DesignOutput = PublicDesign | (PublicDesign | { error: { code: strin
 
 /** A design slot (or a summary-only one) in the public units: the engine's SI summary converted at this edge. */
 function publicSlot(d: DesignResult | { summary: DesignResult['summary'] }): PublicDesign | { summary: PublicDesign['summary'] } {
-  return { ...d, summary: summaryToPublic(d.summary) }
+  const out = { ...d, summary: summaryToPublic(d.summary) }
+  if ('warnings' in out) out.warnings = wordedInSI(out.warnings)
+  return out
+}
+
+/** The engine's notes with their quantity tokens worded in SI, the case file's units (the same array when none has a token). */
+function wordedInSI<W extends { message: string }>(warnings: W[]): W[] {
+  return warnings.some((w) => w.message.includes('{')) ? warnings.map((w) => ({ ...w, message: quantityText(w.message, 'SI') })) : warnings
 }
 
 /** True when the parsed JSON is a batch ({ cases: [...] } or an array). */
@@ -45,6 +53,7 @@ export function designOutput(raw: unknown): DesignOutput {
   const basis = hasBasis ? costBasisFrom((raw as { costBasis: unknown }).costBasis) : null
   const one = (r: DesignResult): PublicDesign => {
     const out = designToPublic(r)
+    out.warnings = wordedInSI(out.warnings)
     if (basis) {
       const priced = priceDesign(r, basis)
       Object.assign(out.summary, { totalAnnualCost: priced.totalAnnualCost, costBreakdown: priced.costBreakdown })

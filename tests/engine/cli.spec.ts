@@ -123,3 +123,21 @@ describe('rate command line', () => {
     expect(stdout).toBe('')
   })
 })
+
+describe('design command line: words for people', () => {
+  // The engine writes lengths in its notes as tokens of SI values; the command line is an edge and
+  // words them in SI, the case file's units (a gas flow this large needs a column beyond 8 m).
+  it('a large column is noted with its diameter in metres, never a raw token', () => {
+    const ex = JSON.parse(readFileSync('data/examples/design.json', 'utf8')) as Record<string, unknown>
+    const f = join(dir, 'large.json')
+    const gas = { ...(ex.gas as Record<string, unknown>), flow: 60000 }
+    writeFileSync(f, JSON.stringify({ ...ex, gas }))
+    const r = runInProcess(f)
+    expect(r.status).toBe(0)
+    const out = JSON.parse(r.stdout) as { warnings: { code: string; message: string }[] }
+    const large = out.warnings.find((w) => w.code === 'largeDiameter')
+    expect(large, JSON.stringify(out.warnings)).toBeDefined()
+    expect(large!.message).toMatch(/Diameter [\d.]+ m is beyond/)
+    for (const w of out.warnings) expect(w.message).not.toMatch(/\{\w+:/)
+  })
+})

@@ -4,7 +4,7 @@
  * robust optimum beside the nominal one; SI, US customary and a phone-width screen.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { api, baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, signIn, type BrowserSession } from './support.ts'
+import { api, baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, signIn, siteIdOf, type BrowserSession } from './support.ts'
 
 let s: BrowserSession
 
@@ -21,8 +21,7 @@ async function newStudy(): Promise<{ siteId: number; id: number }> {
   const r = s.page.request
   const login = await r.post(api('/auth/login'), { data: { email: DEMO_EMAILS.engineer, password: DEMO_PASSWORD } })
   expect(login.ok()).toBe(true)
-  const sites = (await (await r.get(api('/sites'))).json()) as { id: number; code: string }[]
-  const siteId = sites.find((x) => x.code === 'cobalt-ridge')!.id
+  const siteId = await siteIdOf(r, 'cobalt-ridge')
   const created = await r.post(api(`/sites/${siteId}/studies`), {
     data: {
       name: `Confidence trial ${Date.now().toString(36)}`,

@@ -3,7 +3,7 @@
  * but cannot change either.
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
-import { baseUrl, openBrowser, shot, signIn, type BrowserSession } from './support.ts'
+import { baseUrl, openBrowser, shot, signIn, siteIdOf, type BrowserSession } from './support.ts'
 
 let s: BrowserSession
 
@@ -52,9 +52,7 @@ describe('reviewer', () => {
       data: { email: 'engineer@halvard.example', password: 'scrubwright-demo' },
     })
     expect(login.ok()).toBe(true)
-    const sites = (await (await p.request.get(`${baseUrl}/api/v1/sites`)).json()) as { id: number; code: string }[]
-    const siteId = sites.find((x) => x.code === 'cobalt-ridge')?.id
-    expect(siteId).toBeDefined()
+    const siteId = await siteIdOf(p.request, 'cobalt-ridge')
     const created = await p.request.post(`${baseUrl}/api/v1/sites/${siteId}/studies`, {
       data: {
         name: `Review sample ${Date.now().toString(36)}`,

@@ -8,7 +8,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import { mkdirSync } from 'node:fs'
 import path from 'node:path'
 import type { Page } from 'playwright-core'
-import { tag, api, apiSignIn, baseUrl, openBrowser, screenshotDir, signIn, type BrowserSession } from './support.ts'
+import { tag, api, apiSignIn, baseUrl, openBrowser, screenshotDir, signIn, siteIdOf, type BrowserSession } from './support.ts'
 
 let s: BrowserSession
 
@@ -21,8 +21,7 @@ afterEach(async () => {
 
 /** A study of its own with a design and an optimisation, both pinned as options (API, as the signed-in engineer). */
 async function studyWithOptions(page: Page): Promise<{ siteId: number; studyId: number; options: number[] }> {
-  const sites = (await (await page.request.get(api('/sites'))).json()) as { id: number; code: string }[]
-  const siteId = sites.find((x) => x.code === 'cobalt-ridge')!.id
+  const siteId = await siteIdOf(page.request, 'cobalt-ridge')
   const created = await page.request.post(api(`/sites/${siteId}/studies`), {
     data: {
       name: `Print check ${tag()}`,

@@ -5,7 +5,7 @@
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
-import { apiSignOut, apiSignIn, tag, api, baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
+import { apiSignOut, apiSignIn, siteIdOf, tag, api, baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
 
 let s: BrowserSession
 beforeEach(async () => {
@@ -18,8 +18,7 @@ afterEach(async () => {
 /** An approved Cobalt Ridge study with four logged months (the last three with a low recovery). */
 async function approvedWithLog(p: Page): Promise<{ siteId: number; id: number }> {
   await apiSignIn(p.request, 'engineer')
-  const sites = (await (await p.request.get(api('/sites'))).json()) as { id: number; code: string }[]
-  const siteId = sites.find((x) => x.code === 'cobalt-ridge')!.id
+  const siteId = await siteIdOf(p.request, 'cobalt-ridge')
   const created = await p.request.post(api(`/sites/${siteId}/studies`), {
     data: {
       name: `Standing column ${tag()}`,

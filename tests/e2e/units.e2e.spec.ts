@@ -5,7 +5,7 @@
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import type { APIRequestContext, Locator, Page } from 'playwright-core'
-import { tag, api, baseUrl, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
+import { tag, api, baseUrl, siteIdOf, DEMO_EMAILS, DEMO_PASSWORD, openBrowser, shot, type BrowserSession, type DemoPerson } from './support.ts'
 
 let s: BrowserSession
 
@@ -22,12 +22,10 @@ afterEach(async () => {
 async function signInAs(p: Page, who: DemoPerson): Promise<number> {
   const res = await p.request.post(api('/auth/login'), { data: { email: DEMO_EMAILS[who], password: DEMO_PASSWORD } })
   expect(res.ok()).toBe(true)
-  const sites = (await (await p.request.get(api('/sites'))).json()) as { id: number; code: string }[]
-  const id = sites.find((x) => x.code === 'cobalt-ridge')?.id
-  expect(id).toBeDefined()
+  const id = await siteIdOf(p.request, 'cobalt-ridge')
   // the app opens on the site it remembers
-  await p.addInitScript((siteId) => localStorage.setItem('scrubwright.siteId', String(siteId)), id as number)
-  return id as number
+  await p.addInitScript((siteId) => localStorage.setItem('scrubwright.siteId', String(siteId)), id)
+  return id
 }
 
 async function setUnits(p: Page, system: 'SI' | 'US'): Promise<void> {

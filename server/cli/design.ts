@@ -19,8 +19,8 @@ import { reportCliError } from './errors.ts'
 import { evaluateBatch, evaluateCase, InvalidInputError, ENGINE_VERSION } from '../engine/index.ts'
 import type { DesignResult } from '../engine/contract.ts'
 import type { DesignResult as PublicDesign } from '../../shared/schemas/results.ts'
-import { designToPublic, summaryToPublic } from '../../shared/summaryUnits.ts'
-import { quantityText } from '../../shared/quantityText.ts'
+import { summaryToPublic } from '../../shared/summaryUnits.ts'
+import { designText, publicDesign, wordedInSI } from './designOne.ts'
 import { priceDesign } from '../engine/costing/index.ts'
 import { costBasisFrom } from './input.ts'
 import { caseSlot, invalidJsonSlot, slotContext, type SlotContext } from '../engine/batch/slots.ts'
@@ -37,11 +37,6 @@ function publicSlot(d: DesignResult | { summary: DesignResult['summary'] }): Pub
   return out
 }
 
-/** The engine's notes with their quantity tokens worded in SI, the case file's units (the same array when none has a token). */
-function wordedInSI<W extends { message: string }>(warnings: W[]): W[] {
-  return warnings.some((w) => w.message.includes('{')) ? warnings.map((w) => ({ ...w, message: quantityText(w.message, 'SI') })) : warnings
-}
-
 /** True when the parsed JSON is a batch ({ cases: [...] } or an array). */
 export function isBatch(raw: unknown): boolean {
   return Array.isArray(raw) || (typeof raw === 'object' && raw !== null && 'cases' in raw)
@@ -51,15 +46,7 @@ export function isBatch(raw: unknown): boolean {
 export function designOutput(raw: unknown): DesignOutput {
   const hasBasis = typeof raw === 'object' && raw !== null && !Array.isArray(raw) && 'costBasis' in raw
   const basis = hasBasis ? costBasisFrom((raw as { costBasis: unknown }).costBasis) : null
-  const one = (r: DesignResult): PublicDesign => {
-    const out = designToPublic(r)
-    out.warnings = wordedInSI(out.warnings)
-    if (basis) {
-      const priced = priceDesign(r, basis)
-      Object.assign(out.summary, { totalAnnualCost: priced.totalAnnualCost, costBreakdown: priced.costBreakdown })
-    }
-    return out
-  }
+  const one = (r: DesignResult): PublicDesign => publicDesign(r, basis)
   if (!isBatch(raw)) return one(evaluateCase(raw))
   return evaluateBatch(raw).map((r) => ('summary' in r ? one(r) : r))
 }
@@ -69,7 +56,7 @@ export function designOutput(raw: unknown): DesignOutput {
  * result per line (valid JSON, and far smaller for large batches).
  */
 export function formatOutput(result: DesignOutput): string {
-  if (!Array.isArray(result)) return JSON.stringify(result, null, 2) + '\n'
+  if (!Array.isArray(result)) return designText(result)
   if (result.length === 0) return '[]\n'
   return '[\n' + result.map((r) => JSON.stringify(r)).join(',\n') + '\n]\n'
 }

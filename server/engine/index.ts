@@ -8,12 +8,11 @@ import { normaliseCase, mergeLibraries, type CaseSI, type ComponentLibrary } fro
 import { designSI, type DesignOptions } from './design.ts'
 import { InvalidInputError } from './errors.ts'
 import { readPlainCase } from './caseParts/plainCase.ts'
-import componentsJson from '../../data/components.json' with { type: 'json' }
+import { COMPONENT_LIBRARY } from './caseParts/components.ts'
 
 export { ENGINE_VERSION } from './version.ts'
 
-/** The built-in component library (data/components.json). */
-export const COMPONENT_LIBRARY: ComponentLibrary = componentsJson as unknown as ComponentLibrary
+export { COMPONENT_LIBRARY }
 
 function zodPath(path: PropertyKey[]): string {
   return path.map((p) => String(p)).join('.')

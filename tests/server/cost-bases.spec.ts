@@ -71,5 +71,10 @@ describe('site cost bases', () => {
     expect(d.body.name).toBe(presets.body[0].name)
     const unknown = await api().post(`/api/v1/sites/${cobalt}/cost-bases`).set(auth).send({ preset: 'nope' })
     expect([400, 409]).toContain(unknown.status)
+    // names every object has (constructor, toString) are not presets either
+    for (const key of ['constructor', 'toString']) {
+      expect((await api().get(`/api/v1/cost-presets/${key}`).set(auth)).status).toBe(404)
+      expect([400, 409]).toContain((await api().post(`/api/v1/sites/${cobalt}/cost-bases`).set(auth).send({ preset: key })).status)
+    }
   })
 })

@@ -8,14 +8,8 @@
  * wider); the shell thickness used for the shell mass is a preliminary estimate, the vessel must be
  * designed to the local pressure-vessel code by a licensed engineer.
  */
-import {
-  costItemLabels,
-  type CapitalItemKey,
-  type CostBasisData,
-  type CostCurveData,
-  type CostItemKey,
-  type OperatingItemKey,
-} from '../../../shared/schemas/costBasis.ts'
+import type { CostBasisData, CostCurveData } from '../../../shared/schemas/costBasis.ts'
+import { costItemLabels, type CapitalItemKey, type CostItemKey, type OperatingItemKey } from '../../../shared/costItems.ts'
 import type { DesignResult, DesignSummary, EngineWarning } from '../contract.ts'
 import {
   capitalRecoveryFactor,
@@ -36,7 +30,7 @@ export {
   type CapitalItemKey,
   type OperatingItemKey,
   type CostItemKey,
-} from '../../../shared/schemas/costBasis.ts'
+} from '../../../shared/costItems.ts'
 
 export interface CapitalItem {
   key: CapitalItemKey

@@ -1,19 +1,9 @@
 /**
- * Cost-basis presets shipped with the product (data/cost-presets/*.json), parsed with the shared
- * schema. JSON imports keep the engine free of file I/O.
+ * Cost-basis presets shipped with the product (data/cost-presets/*.json, ./presetData.ts), parsed
+ * with the shared schema. JSON imports keep the engine free of file I/O.
  */
 import { costBasisSchema, type CostBasisData } from '../../../shared/schemas/costBasis.ts'
-import seider from '../../../data/cost-presets/seider-3rd-ce500.json' with { type: 'json' }
-import turton from '../../../data/cost-presets/turton-3rd-cepci397.json' with { type: 'json' }
-import cobaltRidge from '../../../data/cost-presets/halvard-cobalt-ridge.json' with { type: 'json' }
-import marrowBay from '../../../data/cost-presets/halvard-marrow-bay.json' with { type: 'json' }
-
-const raw: Record<string, unknown> = {
-  'seider-3rd-ce500': seider,
-  'turton-3rd-cepci397': turton,
-  'halvard-cobalt-ridge': cobaltRidge,
-  'halvard-marrow-bay': marrowBay,
-}
+import { PRESET_DATA as raw } from './presetData.ts'
 
 /** The preset used when a request names none: the Cobalt Ridge demo basis. */
 export const DEFAULT_PRESET = 'halvard-cobalt-ridge'
@@ -48,7 +38,7 @@ export function listPresets(): PresetInfo[] {
 export function loadPreset(key: string): CostBasisData {
   let b = cache.get(key)
   if (!b) {
-    const r = raw[key]
+    const r = hasPreset(key) ? raw[key] : undefined
     if (r === undefined) {
       throw new RangeError(`Unknown cost preset '${key}'. Known: ${Object.keys(raw).join(', ')}`)
     }
@@ -60,5 +50,5 @@ export function loadPreset(key: string): CostBasisData {
 
 /** Is this a known preset key? */
 export function hasPreset(key: string): boolean {
-  return key in raw
+  return Object.prototype.hasOwnProperty.call(raw, key)
 }
